@@ -1,0 +1,40 @@
+import { notFound } from "next/navigation";
+import { CommissionSummary, Timeline } from "@/components/commission/commission-summary";
+import { Card, PageTitle } from "@/components/ui/card";
+import { minorToDecimalString } from "@/lib/core/pricing/format-money";
+import { can } from "@/lib/server/authz";
+import { requireStudioMember } from "@/lib/server/page-guards";
+import { getCommissionFor, getCommissionTimeline } from "@/lib/server/queries/commissions";
+import { PriceForm } from "./price-form";
+
+export default async function StudioCommissionPage({ params }: { params: Promise<{ id: string }> }) {
+  const { id } = await params;
+  const { actor } = await requireStudioMember(`/studio/commissions/${id}`);
+  const c = await getCommissionFor(actor, id).catch(() => null);
+  if (!c || !can(actor, "studio.view", c.studioId)) notFound();
+  const events = await getCommissionTimeline(actor, id);
+  const current = c.priceMinor === null ? "" : minorToDecimalString(c.priceMinor, c.currency);
+  return (
+    <>
+      <PageTitle title={`${c.number}. ${c.title}`} lead={`For ${c.clientName}`} />
+      <div className="grid gap-6 md:grid-cols-[2fr_1fr]">
+        <Card>
+          <h2 className="mb-3 text-xl">Brief</h2>
+          <CommissionSummary c={c} />
+        </Card>
+        <Card>
+          <h2 className="mb-3 text-xl">Price</h2>
+          {can(actor, "commission.price", c.studioId) ? (
+            <PriceForm commissionId={c.id} current={current} currency={c.currency} />
+          ) : (
+            <p className="text-bark">Only the studio owner can change the price.</p>
+          )}
+        </Card>
+      </div>
+      <Card className="mt-6">
+        <h2 className="mb-3 text-xl">Timeline</h2>
+        <Timeline events={events} />
+      </Card>
+    </>
+  );
+}

@@ -1,0 +1,4 @@
+export * from "./auth";
+export * from "./studios";
+export * from "./yarns";
+export * from "./commissions";

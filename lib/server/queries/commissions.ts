@@ -1,0 +1,90 @@
+import "server-only";
+import { and, asc, desc, eq, inArray, or, sql, type SQL } from "drizzle-orm";
+import { db } from "@/db";
+import { commissionEvents, commissions, studioClients, studios } from "@/db/schema";
+import { assertCan, type Actor } from "../authz";
+import { notFound } from "../errors";
+
+/** Rows the actor may see: their studios' commissions, and their own as a client. */
+function visibleTo(actor: Actor): SQL {
+  const studioIds = actor.memberships.map((m) => m.studioId);
+  const clientIds = actor.clientOf.map((c) => c.clientId);
+  const parts: SQL[] = [];
+  if (studioIds.length) parts.push(inArray(commissions.studioId, studioIds));
+  if (clientIds.length) parts.push(inArray(commissions.clientId, clientIds));
+  return parts.length ? (or(...parts) as SQL) : sql`false`;
+}
+
+const listColumns = {
+  id: commissions.id,
+  number: commissions.number,
+  title: commissions.title,
+  garment: commissions.garment,
+  wearer: commissions.wearer,
+  state: commissions.state,
+  neededBy: commissions.neededBy,
+  currency: commissions.currency,
+  budgetMinor: commissions.budgetMinor,
+  priceMinor: commissions.priceMinor,
+  studioId: commissions.studioId,
+  studioName: studios.name,
+  studioSlug: studios.slug,
+  clientName: studioClients.displayName,
+  updatedAt: commissions.updatedAt,
+};
+
+export type CommissionListItem = Awaited<ReturnType<typeof listCommissionsFor>>[number];
+
+export async function listCommissionsFor(actor: Actor, opts: { studioId?: string } = {}) {
+  const where = opts.studioId ? and(visibleTo(actor), eq(commissions.studioId, opts.studioId)) : visibleTo(actor);
+  return db
+    .select(listColumns)
+    .from(commissions)
+    .innerJoin(studios, eq(studios.id, commissions.studioId))
+    .innerJoin(studioClients, eq(studioClients.id, commissions.clientId))
+    .where(where)
+    .orderBy(asc(commissions.neededBy), desc(commissions.updatedAt));
+}
+
+/** One commission the actor may see, or a 404 (never a hint that it exists). */
+export async function getCommissionFor(actor: Actor, id: string) {
+  const [row] = await db
+    .select({ ...listColumns, brief: commissions.brief, createdAt: commissions.createdAt })
+    .from(commissions)
+    .innerJoin(studios, eq(studios.id, commissions.studioId))
+    .innerJoin(studioClients, eq(studioClients.id, commissions.clientId))
+    .where(and(visibleTo(actor), eq(commissions.id, id)))
+    .limit(1);
+  if (!row) throw notFound("That commission");
+  return row;
+}
+
+export async function getCommissionTimeline(actor: Actor, id: string) {
+  const c = await getCommissionFor(actor, id);
+  return db
+    .select()
+    .from(commissionEvents)
+    .where(eq(commissionEvents.commissionId, c.id))
+    .orderBy(asc(commissionEvents.at));
+}
+
+/** Owner only: set the agreed price. Written with an audit row in one transaction. */
+export async function setCommissionPrice(actor: Actor, id: string, priceMinor: number) {
+  const c = await getCommissionFor(actor, id);
+  assertCan(actor, "commission.price", c.studioId);
+  return db.transaction(async (tx) => {
+    const [updated] = await tx
+      .update(commissions)
+      .set({ priceMinor, updatedAt: new Date() })
+      .where(eq(commissions.id, c.id))
+      .returning({ id: commissions.id, priceMinor: commissions.priceMinor, currency: commissions.currency });
+    await tx.insert(commissionEvents).values({
+      commissionId: c.id,
+      actorUserId: actor.userId,
+      actorRole: "owner",
+      kind: "price_set",
+      detail: { from: c.priceMinor, to: priceMinor },
+    });
+    return updated;
+  });
+}

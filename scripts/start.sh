@@ -1,0 +1,96 @@
+#!/usr/bin/env bash
+# npm start: set everything up on this machine and serve Darnwell at http://127.0.0.1:3000.
+# Uses real services where their variables are set (DATABASE_URL, SMTP_URL); starts local ones
+# for the rest. Ctrl-C stops everything this script started.
+set -euo pipefail
+. "$(dirname "$0")/lib/common.sh"
+
+DATA="$ROOT/.data"
+APP_PORT="${PORT:-3000}"
+PG_PORT="${DARNWELL_PG_PORT:-54329}"
+SMTP_PORT="${DARNWELL_SMTP_PORT:-2525}"
+MAIL_HTTP_PORT="${DARNWELL_MAIL_HTTP_PORT:-2580}"
+mkdir -p "$DATA"
+
+PIDS=()
+STARTED_PG=""
+cleanup() {
+  trap - EXIT INT TERM
+  say "stopping"
+  for pid in "${PIDS[@]}"; do kill -TERM -- "-$pid" 2>/dev/null || kill -TERM "$pid" 2>/dev/null || true; done
+  wait 2>/dev/null || true
+  [ -n "$STARTED_PG" ] && pg_down "$STARTED_PG"
+  say "stopped"
+}
+trap cleanup EXIT
+trap 'exit 130' INT TERM
+
+ensure_node_modules
+
+# --- secrets -----------------------------------------------------------------------------
+if [ -n "${DATABASE_URL:-}" ]; then
+  # A deployment with its own database brings its own secrets.
+  [ -n "${BETTER_AUTH_SECRET:-}" ] || die "BETTER_AUTH_SECRET is not set. A deployment that sets DATABASE_URL must also set BETTER_AUTH_SECRET (32+ random characters)."
+  export DARNWELL_DEMO=0
+else
+  [ -n "${BETTER_AUTH_SECRET:-}" ] || ensure_local_secrets "$DATA/secrets.env"
+  export DARNWELL_DEMO=1
+fi
+export BETTER_AUTH_URL="${BETTER_AUTH_URL:-http://127.0.0.1:$APP_PORT}"
+
+# --- PostgreSQL --------------------------------------------------------------------------
+if [ -z "${DATABASE_URL:-}" ]; then
+  pg_up "$DATA/pg" "$PG_PORT"
+  STARTED_PG="$DATA/pg"
+  pg_create_db "$PG_PORT" darnwell
+  export DATABASE_URL="postgres://darnwell@127.0.0.1:$PG_PORT/darnwell"
+  PG_WHERE="local cluster in .data/pg, 127.0.0.1:$PG_PORT (database darnwell)"
+else
+  PG_WHERE="DATABASE_URL (your server)"
+fi
+
+# --- mail ---------------------------------------------------------------------------------
+if [ -z "${SMTP_URL:-}" ]; then
+  setsid node --import tsx scripts/fakes/mail.ts --smtp-port "$SMTP_PORT" --http-port "$MAIL_HTTP_PORT" \
+    --store "$DATA/mail/messages.jsonl" >"$DATA/mail.log" 2>&1 &
+  PIDS+=($!)
+  wait_http "http://127.0.0.1:$MAIL_HTTP_PORT/health" 30 || die "the local mail service did not start (see .data/mail.log)"
+  export SMTP_URL="smtp://127.0.0.1:$SMTP_PORT"
+  export LOCAL_MAIL_API="http://127.0.0.1:$MAIL_HTTP_PORT"
+  MAIL_WHERE="local mail service, SMTP 127.0.0.1:$SMTP_PORT; read it at $BETTER_AUTH_URL/local-inbox"
+else
+  unset LOCAL_MAIL_API
+  MAIL_WHERE="SMTP_URL (your provider)"
+fi
+
+# --- schema, demo data, build -------------------------------------------------------------
+say "applying migrations"
+npx tsx scripts/db-migrate.ts
+if [ "$DARNWELL_DEMO" = "1" ]; then npx tsx db/seed.ts; fi
+build_app .next
+
+# --- serve --------------------------------------------------------------------------------
+NODE_ENV=production setsid npx next start -H 127.0.0.1 -p "$APP_PORT" >"$DATA/app.log" 2>&1 &
+PIDS+=($!)
+wait_http "http://127.0.0.1:$APP_PORT/api/health" 90 || { tail -n 30 "$DATA/app.log"; die "the app did not start (see .data/app.log)"; }
+
+cat <<INFO
+
+  Darnwell is running at  $BETTER_AUTH_URL
+  Database                $PG_WHERE
+  Mail                    $MAIL_WHERE
+  Logs                    .data/app.log, .data/mail.log, .data/pg/server.log
+
+INFO
+if [ "$DARNWELL_DEMO" = "1" ]; then
+  cat <<INFO
+  Demo accounts (password: darnwell-demo)
+    owner      maren@hollin.test     → /studio
+    assistant  tobias@hollin.test    → /studio
+    clients    priya@example.test, elias@example.test, saoirse@example.test → /portal
+  Public studio page: $BETTER_AUTH_URL/studios/hollin-knitworks
+
+INFO
+fi
+say "press Ctrl-C to stop"
+wait "${PIDS[-1]}"
