@@ -69,3 +69,47 @@ export function fromTrade(chart: Pick<Chart, "width">, pos: TradePosition): { x:
 export function stitchSizeCm(gauge: Gauge): { w: number; h: number } {
   return { w: 10 / gauge.stitchesPer10cm, h: 10 / gauge.rowsPer10cm };
 }
+
+/** A cell position in core coordinates (zero-based, x from the left, y from the bottom). */
+export interface Point {
+  x: number;
+  y: number;
+}
+
+/** A rectangle of cells; (x, y) is its bottom-left cell in core coordinates. */
+export interface Rect {
+  x: number;
+  y: number;
+  width: number;
+  height: number;
+}
+
+/** A new chart value with its own cells and palette; charts are treated as immutable values. */
+export function cloneChart(chart: Chart, cells: Uint8Array = chart.cells.slice()): Chart {
+  return {
+    width: chart.width,
+    height: chart.height,
+    gauge: { ...chart.gauge },
+    palette: chart.palette.map((p) => ({ ...p })),
+    cells,
+  };
+}
+
+/** Throws a RangeError when `colour` is not an index into the chart's palette. */
+export function assertColour(chart: Pick<Chart, "palette">, colour: number): void {
+  if (!Number.isInteger(colour) || colour < 0 || colour >= chart.palette.length) {
+    throw new RangeError(
+      `colour ${colour} is not in the palette (it has ${chart.palette.length} colour${chart.palette.length === 1 ? "" : "s"})`,
+    );
+  }
+}
+
+/** Intersection of a rectangle with the chart, or null when nothing is left. */
+export function clipRect(chart: Pick<Chart, "width" | "height">, rect: Rect): Rect | null {
+  const x0 = Math.max(0, Math.min(rect.x, rect.x + rect.width));
+  const y0 = Math.max(0, Math.min(rect.y, rect.y + rect.height));
+  const x1 = Math.min(chart.width, Math.max(rect.x, rect.x + rect.width));
+  const y1 = Math.min(chart.height, Math.max(rect.y, rect.y + rect.height));
+  if (x1 <= x0 || y1 <= y0) return null;
+  return { x: x0, y: y0, width: x1 - x0, height: y1 - y0 };
+}
