@@ -1,0 +1,142 @@
+// A hat, bottom up in the round: ribbed brim, straight body (the colourwork band), crown decreased in
+// sectors and drawn together. Decorated areas: band (whole round) and crown (one sector, repeated).
+import type { Gauge } from "../chart/model";
+import { getCastOn, getRows } from "./cast-on";
+import type { TemplateOutput } from "./mitten";
+import { IMPERIAL, METRIC, ribFor, type UnitWriter } from "./recipe-text";
+import type { ChartArea, Piece } from "./sizing-result";
+import { SizingError } from "./sizing-error";
+import { Tally } from "./tally";
+import { roundTo, toLength } from "./units";
+
+// (memory) common practice in hat patterns, not read from a source; each can be given instead.
+export const HAT_PROPORTIONS = {
+  /** brim edge to crown, unfolded, as a share of the head circumference (≈ 21 cm on a 56 cm head) */
+  heightPerHead: 0.37,
+  brimPerHead: 0.09,
+  /** sector counts tried in order: 8 is the usual; near counts keep the crown about as deep, else 8 after a few decreases */
+  sectorChoices: [8, 7, 9, 10, 6],
+  source: "(memory) common practice in hat patterns",
+} as const;
+
+export interface HatSpec {
+  headCircumferenceCm: number;
+  hatHeightCm?: number;
+  brimLengthCm?: number;
+  easeCm: number;
+  gauge: Gauge;
+  repeat: number;
+}
+
+/** Sectors that divide the round into whole sectors of at least 4 sts, or 8 after a few decreases. */
+export function chooseCrownSectors(stitches: number): { sectors: number; start: number } {
+  for (const s of HAT_PROPORTIONS.sectorChoices) {
+    if (stitches % s === 0 && stitches / s >= 4) return { sectors: s, start: stitches };
+  }
+  return { sectors: 8, start: stitches - (stitches % 8) };
+}
+
+export function sizeHat(spec: HatSpec): TemplateOutput {
+  const P = HAT_PROPORTIONS;
+  const spc = spec.gauge.stitchesPer10cm / 10;
+  const rpc = spec.gauge.rowsPer10cm / 10;
+  const warnings: string[] = [];
+  const derived: Record<string, number> = {};
+
+  const around = getCastOn(spec.headCircumferenceCm + spec.easeCm, spc, spec.repeat, "repeat", "hat");
+  const heightCm = spec.hatHeightCm ?? roundTo(P.heightPerHead * spec.headCircumferenceCm, 0.1);
+  if (spec.hatHeightCm === undefined) derived.hatHeightCm = heightCm;
+  const brimCm = spec.brimLengthCm ?? roundTo(P.brimPerHead * spec.headCircumferenceCm, 0.1);
+  if (spec.brimLengthCm === undefined) derived.brimLengthCm = brimCm;
+
+  if (around < 16) {
+    throw new SizingError("gauge.stitchesPer10cm", `only ${around} sts around a hat at this gauge: too few to shape a crown`);
+  }
+  const { sectors, start } = chooseCrownSectors(around);
+  const perSector = start / sectors;
+  if (perSector < 4) warnings.push(`only ${perSector} sts a crown sector: the crown is drawn together after few decreases`);
+  const crownCounts: number[] = [];
+  let cur = start;
+  for (let left = perSector; left > 1; left--) {
+    const slow = cur > start / 2;
+    cur -= sectors;
+    crownCounts.push(cur);
+    if (slow) crownCounts.push(cur);
+  }
+  const crownRows = crownCounts.length;
+  const alternate = crownCounts.length - (perSector - 1);
+  const everyRound = perSector - 1 - alternate;
+
+  const totalRows = getRows(heightCm, rpc);
+  const brimRows = getRows(brimCm, rpc);
+  const bodyRows = totalRows - brimRows - crownRows;
+  if (bodyRows < 1) {
+    throw new SizingError(
+      "options.hatHeightCm",
+      `a ${roundTo(heightCm, 0.1)} cm hat is too short: the brim (${roundTo(brimRows / rpc, 0.1)} cm) and crown (${roundTo(crownRows / rpc, 0.1)} cm) need more at this gauge`,
+    );
+  }
+
+  const t = new Tally(around);
+  t.plain(brimRows);
+  t.plain(bodyRows - (start === around ? 0 : 1));
+  if (start !== around) t.shape(start);
+  for (const c of crownCounts) t.shape(c);
+
+  const crownStitches = crownCounts.reduce((s, c) => s + c, 0);
+  const charts: ChartArea[] = [
+    {
+      area: "band",
+      piece: "hat",
+      width: around,
+      height: bodyRows,
+      repeats: 1,
+      stitches: around * bodyRows,
+      note: "the whole round between the brim and the crown",
+    },
+    {
+      area: "crown",
+      piece: "hat",
+      width: perSector,
+      height: crownRows,
+      repeats: sectors,
+      stitches: crownStitches,
+      note: `one of ${sectors} sectors; each decrease round takes 1 st from the end of every sector`,
+    },
+  ];
+  const pieces: Piece[] = [
+    { name: "hat", quantity: 1, start: "long-tail", castOn: around, castOnWidthCm: roundTo(around / spc, 0.1), bindOff: 0, stitches: t.total },
+  ];
+
+  const write = (u: UnitWriter): string[] => {
+    const lines = [
+      `Gauge: ${u.gauge(spec.gauge)}.`,
+      `Cast on ${around} sts and join to work in the round (finished ${u.len(around / spc)} around).`,
+      `Brim: work ${brimRows} rnds (${u.len(brimRows / rpc)}) of ${ribFor(around)}.`,
+      `Body: work ${bodyRows} rnds (${u.len(bodyRows / rpc)}) in stockinette or the band chart, to ${u.len((brimRows + bodyRows) / rpc)} from the cast-on edge.`,
+    ];
+    if (start !== around) {
+      lines.push(`On the last body rnd decrease ${around - start} sts evenly (${start} sts).`);
+    }
+    lines.push(
+      `Crown: place a marker every ${perSector} sts (${sectors} sectors). Knit to 2 sts before each marker, k2tog: every other rnd ${alternate} times, then every rnd ${everyRound} times (${cur} sts), ${crownRows} rnds (${u.len(crownRows / rpc)}).`,
+      `Cut the yarn, draw it through the remaining ${cur} sts and pull tight. Weave in the ends and block.`,
+    );
+    return lines;
+  };
+
+  return {
+    castOn: around,
+    counts: { around, crownStart: start, crownSectors: sectors, perSector, crownTop: cur },
+    rows: { brim: brimRows, body: bodyRows, crown: crownRows, total: brimRows + bodyRows + crownRows },
+    charts,
+    pieces,
+    finished: {
+      circumference: toLength(around / spc),
+      height: toLength((brimRows + bodyRows + crownRows) / rpc),
+    },
+    derived,
+    recipe: { metric: write(METRIC), imperial: write(IMPERIAL) },
+    warnings,
+  };
+}

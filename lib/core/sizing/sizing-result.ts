@@ -1,0 +1,58 @@
+// What every garment template returns.
+import type { Gauge } from "../chart/model";
+import type { Length } from "./units";
+
+export type GarmentKind = "mitten" | "hat" | "pullover";
+
+/** A decorated area and the chart a design for it needs. */
+export interface ChartArea {
+  area: string;
+  /** the piece it sits on (see `pieces`) */
+  piece: string;
+  /** stitches across (one repeat of a sector for a crown) */
+  width: number;
+  /** rows (rounds) high */
+  height: number;
+  /** how many times the chart is worked around one piece (crown sectors), else 1 */
+  repeats: number;
+  /** stitches the area holds on one piece, shaping included: what yarn estimates subtract */
+  stitches: number;
+  note: string;
+}
+
+/** One knitted piece, for yarn estimates: its stitch count integrates every round's count. */
+export interface Piece {
+  name: string;
+  /** how many are knitted (2 for a pair of mittens, 2 sleeves) */
+  quantity: number;
+  /** how it starts: long-tail cast-on, stitches picked up, or joined from other pieces */
+  start: "long-tail" | "picked-up" | "joined";
+  castOn: number;
+  castOnWidthCm: number;
+  /** stitches bound off at the end (0 when drawn together or grafted) */
+  bindOff: number;
+  /** every stitch knitted in one piece */
+  stitches: number;
+}
+
+export interface SizingResult {
+  garment: GarmentKind;
+  /** the standard size used, when one was picked */
+  size: string | null;
+  /** main circumference count: hand, head or chest */
+  castOn: number;
+  counts: Record<string, number>;
+  rows: Record<string, number>;
+  charts: ChartArea[];
+  pieces: Piece[];
+  /** measurements used after defaults, and where each came from */
+  measurements: Record<string, Length & { from: "given" | "standard size" | "derived" }>;
+  ease: Length & { percent: number | null; from: string };
+  gauge: Gauge & { stitchesPer4in: number; rowsPer4in: number };
+  /** finished sizes at the stitch counts chosen */
+  finished: Record<string, Length>;
+  recipe: { metric: string[]; imperial: string[] };
+  warnings: string[];
+  /** sources of the tables and rules used */
+  sources: string[];
+}
