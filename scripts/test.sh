@@ -71,7 +71,7 @@ if build_app .next-test 2>&1; then
     setsid npx next start -H 127.0.0.1 -p "$APP_PORT" >"$TMP/app.log" 2>&1 &
   PIDS+=($!)
   if wait_http "http://127.0.0.1:$APP_PORT/api/health" 90; then
-    E2E_BASE_URL="$BETTER_AUTH_URL" npx vitest run --config vitest.e2e.config.ts --reporter=default \
+    E2E_BASE_URL="$BETTER_AUTH_URL" npx vitest run --config vitest.e2e.config.mts --reporter=default \
       --reporter=json --outputFile.json="$E2E_JSON" || step_fail "end-to-end tests"
   else
     tail -n 30 "$TMP/app.log"; step_fail "app start"

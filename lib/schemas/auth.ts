@@ -14,6 +14,16 @@ export const password = z
   .min(PASSWORD_MIN, `Use at least ${PASSWORD_MIN} characters.`)
   .max(128, "Use at most 128 characters.");
 
+// Checked even while other fields are wrong, so every message shows at once.
+const sameTwice = {
+  path: ["confirm"],
+  message: "The two passwords are not the same.",
+  when: (p: { value: unknown }) => {
+    const v = p.value as { password?: unknown; confirm?: unknown } | undefined;
+    return typeof v?.password === "string" && typeof v?.confirm === "string";
+  },
+};
+
 export const signInSchema = z.object({
   email,
   password: z.string().min(1, "Enter your password."),
@@ -28,13 +38,13 @@ export const signUpSchema = z
     password,
     confirm: z.string(),
   })
-  .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "The two passwords are not the same." });
+  .refine((v) => v.password === v.confirm, sameTwice);
 
 export const forgotSchema = z.object({ email });
 
 export const resetSchema = z
   .object({ password, confirm: z.string() })
-  .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "The two passwords are not the same." });
+  .refine((v) => v.password === v.confirm, sameTwice);
 
 export const inviteSchema = z.object({ email });
 

@@ -1,0 +1,89 @@
+// Chromium (Debian's) driven by playwright-core, with an axe-core check for every page opened.
+import { mkdirSync, readFileSync } from "node:fs";
+import { createRequire } from "node:module";
+import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
+import { expect } from "vitest";
+
+export const BASE = process.env.E2E_BASE_URL ?? "http://127.0.0.1:3100";
+const require = createRequire(import.meta.url);
+const axeSource = readFileSync(require.resolve("axe-core/axe.min.js"), "utf8");
+
+export async function launch(): Promise<Browser> {
+  return chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
+    args: [
+      "--headless",
+      "--no-sandbox",
+      "--disable-gpu",
+      "--disable-background-networking",
+      "--disable-component-update",
+      "--disable-sync",
+      "--no-first-run",
+      "--disable-quic",
+    ],
+  });
+}
+
+export const PHONE = { viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true };
+
+export async function newPage(browser: Browser, opts: Parameters<Browser["newContext"]>[0] = {}): Promise<{ context: BrowserContext; page: Page }> {
+  const context = await browser.newContext({ baseURL: BASE, ...opts });
+  context.setDefaultTimeout(20_000);
+  context.setDefaultNavigationTimeout(30_000);
+  const page = await context.newPage();
+  return { context, page };
+}
+
+/** Runs a test body in a fresh context; on failure keeps a screenshot in test-results/e2e/. */
+export async function withPage(
+  browser: Browser,
+  name: string,
+  body: (page: Page) => Promise<void>,
+  opts: Parameters<Browser["newContext"]>[0] = {},
+): Promise<void> {
+  const { context, page } = await newPage(browser, opts);
+  try {
+    await body(page);
+  } catch (err) {
+    mkdirSync("test-results/e2e", { recursive: true });
+    await page
+      .screenshot({ path: `test-results/e2e/${name.replace(/[^a-z0-9]+/gi, "-")}.png`, fullPage: true, timeout: 5000 })
+      .catch(() => undefined);
+    throw new Error(`${(err as Error).message}\n(at ${page.url()})`, { cause: err });
+  } finally {
+    await context.close();
+  }
+}
+
+interface AxeViolation {
+  id: string;
+  impact: string | null;
+  help: string;
+  nodes: { target: string[] }[];
+}
+
+/** Fails the test on any serious or critical accessibility violation on the current page. */
+export async function expectAccessible(page: Page): Promise<void> {
+  await page.waitForLoadState("load");
+  await page.addScriptTag({ content: axeSource });
+  const violations = (await page.evaluate(async () => {
+    const axe = (window as unknown as { axe: { run: (ctx: Document, opts: unknown) => Promise<{ violations: unknown[] }> } }).axe;
+    const r = await axe.run(document, { runOnly: { type: "tag", values: ["wcag2a", "wcag2aa", "wcag21a", "wcag21aa", "best-practice"] } });
+    return r.violations;
+  })) as AxeViolation[];
+  const bad = violations.filter((v) => v.impact === "serious" || v.impact === "critical");
+  expect(
+    bad.map((v) => `${v.impact} ${v.id}: ${v.help} at ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`),
+    `accessibility of ${page.url()}`,
+  ).toEqual([]);
+}
+
+export async function signInAs(page: Page, email: string, password = "darnwell-demo"): Promise<void> {
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password", { exact: true }).fill(password);
+  await page.getByRole("button", { name: "Sign in", exact: true }).click();
+}
+
+/** How long an expect.poll waits for the page to catch up (not a timing assertion). */
+export const POLL = { timeout: 15_000, interval: 100 };
