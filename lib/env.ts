@@ -17,6 +17,18 @@ const schema = z.object({
   /** Sign-in attempts allowed per IP per minute (better-auth rate limit). */
   AUTH_SIGNIN_LIMIT: z.coerce.number().int().positive().default(5),
   AUTH_RATE_LIMIT: z.enum(["on", "off"]).default("on"),
+  /** S3-compatible object storage (the local fake by default). */
+  S3_ENDPOINT: url.optional(),
+  S3_REGION: z.string().default("us-east-1"),
+  S3_BUCKET: z.string().min(3).default("darnwell"),
+  S3_ACCESS_KEY_ID: z.string().min(1).default("S3RVER"),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).default("S3RVER"),
+  /** Payments: the secret key and webhook signing secret; the API address is set only for the local fake. */
+  STRIPE_SECRET_KEY: z.string().min(8).optional(),
+  STRIPE_WEBHOOK_SECRET: z.string().min(8).optional(),
+  STRIPE_API_URL: url.optional(),
+  /** The outbox worker runs inside each app instance unless turned off (tests drive it by hand). */
+  OUTBOX_WORKER: z.enum(["on", "off"]).default("on"),
   /** Set by the scripts when the database is the local demo one; demo accounts exist only then. */
   DARNWELL_DEMO: z.enum(["0", "1"]).default("0"),
 });

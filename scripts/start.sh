@@ -10,6 +10,7 @@ APP_PORT="${PORT:-3000}"
 PG_PORT="${DARNWELL_PG_PORT:-54329}"
 SMTP_PORT="${DARNWELL_SMTP_PORT:-2525}"
 MAIL_HTTP_PORT="${DARNWELL_MAIL_HTTP_PORT:-2580}"
+S3_PORT="${DARNWELL_S3_PORT:-4568}"
 mkdir -p "$DATA"
 
 PIDS=()
@@ -51,6 +52,7 @@ fi
 
 # --- mail ---------------------------------------------------------------------------------
 if [ -z "${SMTP_URL:-}" ]; then
+  ensure_port_free "$SMTP_PORT" "the local mail service"; ensure_port_free "$MAIL_HTTP_PORT" "the local mail service"
   setsid node --import tsx scripts/fakes/mail.ts --smtp-port "$SMTP_PORT" --http-port "$MAIL_HTTP_PORT" \
     --store "$DATA/mail/messages.jsonl" >"$DATA/mail.log" 2>&1 &
   PIDS+=($!)
@@ -63,12 +65,28 @@ else
   MAIL_WHERE="SMTP_URL (your provider)"
 fi
 
+# --- object storage ------------------------------------------------------------------------
+if [ -z "${S3_ENDPOINT:-}" ]; then
+  ensure_port_free "$S3_PORT" "the local object storage"
+  setsid node --import tsx scripts/fakes/storage.ts --port "$S3_PORT" --dir "$DATA/s3" >"$DATA/storage.log" 2>&1 &
+  PIDS+=($!)
+  wait_http "http://127.0.0.1:$S3_PORT/" 30 || die "the local object storage did not start (see .data/storage.log)"
+  export S3_ENDPOINT="http://127.0.0.1:$S3_PORT"
+  STORAGE_WHERE="local S3 fake at $S3_ENDPOINT (files in .data/s3)"
+else
+  STORAGE_WHERE="S3_ENDPOINT (your storage)"
+fi
+
+# --- payments (slot: the local payments fake is started here) --------------------------------
+PAYMENTS_WHERE="not configured yet"
+
 # --- schema, demo data, build -------------------------------------------------------------
 say "applying migrations"
 npx tsx scripts/db-migrate.ts
 if [ "$DARNWELL_DEMO" = "1" ]; then npx tsx db/seed.ts; fi
 build_app .next
 
+ensure_port_free "$APP_PORT" "the app"
 # --- serve --------------------------------------------------------------------------------
 NODE_ENV=production setsid npx next start -H 127.0.0.1 -p "$APP_PORT" >"$DATA/app.log" 2>&1 &
 PIDS+=($!)
@@ -79,7 +97,9 @@ cat <<INFO
   Darnwell is running at  $BETTER_AUTH_URL
   Database                $PG_WHERE
   Mail                    $MAIL_WHERE
-  Logs                    .data/app.log, .data/mail.log, .data/pg/server.log
+  Object storage          $STORAGE_WHERE
+  Payments                $PAYMENTS_WHERE
+  Logs                    .data/app.log, .data/mail.log, .data/storage.log, .data/pg/server.log
 
 INFO
 if [ "$DARNWELL_DEMO" = "1" ]; then

@@ -12,6 +12,8 @@ PG_PORT="${DARNWELL_TEST_PG_PORT:-54339}"
 SMTP_PORT="${DARNWELL_TEST_SMTP_PORT:-2526}"
 MAIL_HTTP_PORT="${DARNWELL_TEST_MAIL_HTTP_PORT:-2581}"
 APP_PORT="${DARNWELL_TEST_APP_PORT:-3100}"
+S3_PORT="${DARNWELL_TEST_S3_PORT:-4569}"
+DIST="${DARNWELL_TEST_DIST:-.next-test}"
 mkdir -p "$TMP"
 
 PIDS=()
@@ -33,6 +35,7 @@ ensure_node_modules
 command -v pdftoppm >/dev/null || apt_install poppler-utils
 
 # --- services --------------------------------------------------------------------------
+for p in "$PG_PORT:PostgreSQL" "$SMTP_PORT:mail" "$MAIL_HTTP_PORT:mail API" "$APP_PORT:the app" "$S3_PORT:object storage"; do ensure_port_free "${p%%:*}" "${p#*:}"; done
 pg_up "$TMP/pg" "$PG_PORT"
 pg_create_db "$PG_PORT" darnwell_test
 setsid node --import tsx scripts/fakes/mail.ts --smtp-port "$SMTP_PORT" --http-port "$MAIL_HTTP_PORT" \
@@ -40,6 +43,12 @@ setsid node --import tsx scripts/fakes/mail.ts --smtp-port "$SMTP_PORT" --http-p
 PIDS+=($!)
 wait_http "http://127.0.0.1:$MAIL_HTTP_PORT/health" 30 || die "the local mail service did not start"
 
+setsid node --import tsx scripts/fakes/storage.ts --port "$S3_PORT" --dir "$TMP/s3" >"$TMP/storage.log" 2>&1 &
+PIDS+=($!)
+wait_http "http://127.0.0.1:$S3_PORT/" 30 || die "the local object storage did not start"
+# slot: the local payments fake is started here
+
+export S3_ENDPOINT="http://127.0.0.1:$S3_PORT"
 export DATABASE_URL="postgres://darnwell@127.0.0.1:$PG_PORT/darnwell_test"
 export SMTP_URL="smtp://127.0.0.1:$SMTP_PORT"
 export LOCAL_MAIL_API="http://127.0.0.1:$MAIL_HTTP_PORT"
@@ -60,14 +69,14 @@ npx eslint --max-warnings 0 . || step_fail lint
 
 # --- unit + integration ------------------------------------------------------------------
 say "unit and integration tests"
-AUTH_SIGNIN_LIMIT=5 npx vitest run --reporter=default --reporter=json --outputFile.json="$TMP/vitest.json" \
+OUTBOX_WORKER=off AUTH_SIGNIN_LIMIT=5 npx vitest run --reporter=default --reporter=json --outputFile.json="$TMP/vitest.json" \
   || step_fail "unit/integration tests"
 
 # --- end-to-end --------------------------------------------------------------------------
 say "end-to-end tests (production build, Chromium)"
 E2E_JSON="$TMP/e2e.json"
-if build_app .next-test 2>&1; then
-  NEXT_DIST_DIR=.next-test NODE_ENV=production AUTH_SIGNIN_LIMIT=500 \
+if build_app "$DIST" 2>&1; then
+  NEXT_DIST_DIR="$DIST" NODE_ENV=production AUTH_SIGNIN_LIMIT=500 \
     setsid npx next start -H 127.0.0.1 -p "$APP_PORT" >"$TMP/app.log" 2>&1 &
   PIDS+=($!)
   if wait_http "http://127.0.0.1:$APP_PORT/api/health" 90; then

@@ -2,3 +2,8 @@ export * from "./auth";
 export * from "./studios";
 export * from "./yarns";
 export * from "./commissions";
+export * from "./designs";
+export * from "./quotes";
+export * from "./journey";
+export * from "./payments";
+export * from "./production";

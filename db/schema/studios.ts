@@ -3,6 +3,7 @@ import {
   check,
   index,
   integer,
+  jsonb,
   pgEnum,
   pgTable,
   text,
@@ -29,6 +30,10 @@ export const studios = pgTable(
     timeZone: text("time_zone").notNull().default("Europe/London"),
     brandHex: text("brand_hex").notNull().default("#A3342A"),
     contactEmail: text("contact_email").notNull(),
+    address: text("address").notNull().default(""),
+    taxNumber: text("tax_number").notNull().default(""),
+    /** studio settings (rates, tax, deposit, policies); validated by lib/schemas when read and written */
+    settings: jsonb("settings").$type<Record<string, unknown>>().notNull().default({}),
     /** next commission number, allocated inside the transaction that creates the commission */
     nextCommissionNo: integer("next_commission_no").notNull().default(1),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
@@ -87,6 +92,9 @@ export const studioClients = pgTable(
       .references(() => user.id, { onDelete: "cascade" }),
     displayName: text("display_name").notNull(),
     notes: text("notes").notNull().default(""),
+    shippingAddress: text("shipping_address").notNull().default(""),
+    /** the payment provider's customer id, once there is one */
+    paymentCustomerId: text("payment_customer_id"),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [uniqueIndex("studio_clients_studio_user").on(t.studioId, t.userId)],

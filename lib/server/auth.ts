@@ -7,18 +7,14 @@ import { db } from "@/db";
 import { account, rateLimit, session, user, verification } from "@/db/schema";
 import { env } from "@/lib/env";
 import { magicLinkMessage, resetPasswordMessage, verifyEmailMessage } from "@/templates/email/auth";
-import { sendMail } from "./mail";
+import { enqueueMail } from "./outbox";
 
 import { PASSWORD_MIN } from "@/lib/schemas/auth";
 export { PASSWORD_MIN };
 
+// Through the outbox: if the mail server is down the message waits and is retried.
 async function deliver(to: string, message: { subject: string; html: string; text: string }) {
-  try {
-    await sendMail({ to, ...message });
-  } catch (err) {
-    // The account change is kept; the person can ask for the mail again.
-    console.error(`mail to ${to} failed:`, (err as Error).message);
-  }
+  await enqueueMail({ to, ...message });
 }
 
 function createAuth() {

@@ -7,7 +7,7 @@ import { env } from "@/lib/env";
 import { invitationMessage } from "@/templates/email/auth";
 import { assertCan, type Actor } from "./authz";
 import { AppError, conflict } from "./errors";
-import { sendMail } from "./mail";
+import { enqueueMail } from "./outbox";
 
 const INVITATION_DAYS = 7;
 export const hashToken = (token: string) => createHash("sha256").update(token).digest("hex");
@@ -37,7 +37,7 @@ export async function inviteMember(actor: Actor, studioId: string, email: string
     })
     .returning({ id: studioInvitations.id });
   const url = `${env.BETTER_AUTH_URL}/invitations/${token}`;
-  await sendMail({ to: normalised, ...invitationMessage(studio.name, actor.name, url) });
+  await enqueueMail({ to: normalised, studioId, ...invitationMessage(studio.name, actor.name, url) });
   return { id: row.id, email: normalised };
 }
 

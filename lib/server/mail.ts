@@ -8,6 +8,7 @@ export interface MailMessage {
   text: string;
   html: string;
   replyTo?: string;
+  messageId?: string;
   attachments?: { filename: string; content: Buffer; contentType: string }[];
 }
 

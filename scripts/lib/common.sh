@@ -115,6 +115,15 @@ ensure_local_secrets() {
   set -a; . "$file"; set +a
 }
 
+# ensure_port_free PORT WHAT: refuse to start a service on a port something else already holds
+# (otherwise the scripts would talk to a stale server).
+ensure_port_free() {
+  local port="$1" what="$2"
+  if (exec 3<>"/dev/tcp/127.0.0.1/$port") 2>/dev/null; then
+    die "Port $port (for $what) is already in use on 127.0.0.1. Stop what holds it (ss -ltnp | grep :$port) or choose another port."
+  fi
+}
+
 # wait_http URL SECONDS
 wait_http() {
   local url="$1" secs="${2:-60}" i

@@ -6,6 +6,7 @@ import { db } from "@/db";
 import { account, commissions, studioClients, studioMembers, studios, user } from "@/db/schema";
 import { getAuth } from "@/lib/server/auth";
 import { loadActor, type Actor } from "@/lib/server/authz";
+import { processOutbox } from "@/lib/server/outbox";
 
 export const BASE = process.env.BETTER_AUTH_URL ?? "http://127.0.0.1:3100";
 export const uid = () => randomBytes(5).toString("hex");
@@ -75,6 +76,8 @@ export async function waitForMail(to: string, match: (m: CaughtMail) => boolean 
   const api = process.env.LOCAL_MAIL_API;
   if (!api) throw new Error("LOCAL_MAIL_API is not set: run the tests with npm test");
   for (let i = 0; i < tries; i++) {
+    // The app's worker sends the outbox; in tests we drive it by hand (OUTBOX_WORKER=off).
+    await processOutbox();
     const res = await fetch(`${api}/messages?to=${encodeURIComponent(to)}`);
     const list = (await res.json()) as CaughtMail[];
     const hit = list.find(match);
@@ -85,6 +88,7 @@ export async function waitForMail(to: string, match: (m: CaughtMail) => boolean 
 }
 
 export async function mailCount(to: string): Promise<number> {
+  await processOutbox();
   const res = await fetch(`${process.env.LOCAL_MAIL_API}/messages?to=${encodeURIComponent(to)}`);
   return ((await res.json()) as unknown[]).length;
 }

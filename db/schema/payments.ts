@@ -1,0 +1,103 @@
+import { sql } from "drizzle-orm";
+import { check, date, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { commissions } from "./commissions";
+import { quoteVersions } from "./quotes";
+import { studios } from "./studios";
+
+export const paymentKind = pgEnum("payment_kind", ["deposit", "balance"]);
+export const paymentStatus = pgEnum("payment_status", ["open", "paid", "failed", "expired", "refunded", "partially_refunded"]);
+
+/** One checkout for one amount; its state comes only from verified webhook events. */
+export const payments = pgTable(
+  "payments",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    studioId: uuid("studio_id")
+      .notNull()
+      .references(() => studios.id, { onDelete: "cascade" }),
+    commissionId: uuid("commission_id")
+      .notNull()
+      .references(() => commissions.id, { onDelete: "cascade" }),
+    quoteVersionId: uuid("quote_version_id").references(() => quoteVersions.id),
+    kind: paymentKind("kind").notNull(),
+    status: paymentStatus("status").notNull().default("open"),
+    amountMinor: integer("amount_minor").notNull(),
+    currency: text("currency").notNull(),
+    refundedMinor: integer("refunded_minor").notNull().default(0),
+    checkoutSessionId: text("checkout_session_id").unique(),
+    checkoutUrl: text("checkout_url"),
+    paymentIntentId: text("payment_intent_id"),
+    /** the idempotency key used to create the session, kept so a retry sends the same one */
+    idempotencyKey: text("idempotency_key").notNull().unique(),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    paidAt: timestamp("paid_at", { withTimezone: true }),
+  },
+  (t) => [
+    index("payments_commission").on(t.commissionId),
+    index("payments_studio").on(t.studioId, t.createdAt),
+    check("payments_amounts", sql`${t.amountMinor} > 0 and ${t.refundedMinor} between 0 and ${t.amountMinor}`),
+  ],
+);
+
+export const refunds = pgTable("refunds", {
+  id: uuid("id").primaryKey().defaultRandom(),
+  paymentId: uuid("payment_id")
+    .notNull()
+    .references(() => payments.id, { onDelete: "cascade" }),
+  providerRefundId: text("provider_refund_id").unique(),
+  amountMinor: integer("amount_minor").notNull(),
+  reason: text("reason").notNull().default(""),
+  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+});
+
+/** Each provider event once: a replay is acknowledged and ignored. */
+export const webhookEvents = pgTable("webhook_events", {
+  id: text("id").primaryKey(),
+  type: text("type").notNull(),
+  payload: jsonb("payload").$type<Record<string, unknown>>().notNull(),
+  receivedAt: timestamp("received_at", { withTimezone: true }).notNull().defaultNow(),
+  processedAt: timestamp("processed_at", { withTimezone: true }),
+});
+
+export const documentKind = pgEnum("document_kind", ["invoice", "receipt"]);
+
+/** Invoices and receipts, numbered per studio and kind without gaps (allocated in the same transaction). */
+export const invoices = pgTable(
+  "invoices",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    studioId: uuid("studio_id")
+      .notNull()
+      .references(() => studios.id, { onDelete: "cascade" }),
+    commissionId: uuid("commission_id")
+      .notNull()
+      .references(() => commissions.id, { onDelete: "cascade" }),
+    kind: documentKind("kind").notNull(),
+    number: integer("number").notNull(),
+    quoteVersionId: uuid("quote_version_id").references(() => quoteVersions.id),
+    paymentId: uuid("payment_id").references(() => payments.id),
+    currency: text("currency").notNull(),
+    /** lines, tax, totals, deposit paid, balance due, as issued */
+    content: jsonb("content").$type<Record<string, unknown>>().notNull(),
+    totalMinor: integer("total_minor").notNull(),
+    dueDate: date("due_date"),
+    issuedAt: timestamp("issued_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("invoices_studio_kind_number").on(t.studioId, t.kind, t.number), index("invoices_commission").on(t.commissionId)],
+);
+
+/** Per-studio counters for gap-free document numbers (row locked while a number is taken). */
+export const documentCounters = pgTable(
+  "document_counters",
+  {
+    studioId: uuid("studio_id")
+      .notNull()
+      .references(() => studios.id, { onDelete: "cascade" }),
+    kind: documentKind("kind").notNull(),
+    next: integer("next").notNull().default(1),
+  },
+  (t) => [uniqueIndex("document_counters_pk").on(t.studioId, t.kind)],
+);
+
+export type Payment = typeof payments.$inferSelect;
+export type Invoice = typeof invoices.$inferSelect;

@@ -1,0 +1,100 @@
+import fc from "fast-check";
+import { describe, expect, test } from "vitest";
+import { getCatchCount, getCatchOffsets, getFloatLimitStitches, getRowFloats } from "@/lib/core/colourwork/row-floats";
+
+/** A knitted row in knitting order from a drawing of 'a' and 'b'. */
+const row = (s: string) => Array.from(s, (ch) => (ch === "a" ? 0 : 1));
+
+describe("getCatchCount: ceil(n / L) - 1 catches for a float of n stitches", () => {
+  test.each([
+    [1, 5, 0],
+    [5, 5, 0], // exactly at the limit: fine
+    [6, 5, 1],
+    [10, 5, 1], // two pieces of 5
+    [11, 5, 2],
+    [15, 5, 2],
+    [16, 5, 3],
+    [7, 3, 2],
+  ])("n=%i, L=%i → %i", (n, limit, catches) => {
+    expect(getCatchCount(n, limit)).toBe(catches);
+  });
+
+  test("catch offsets split the float into pieces no longer than the limit", () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 200 }), fc.integer({ min: 1, max: 12 }), (n, limit) => {
+        const offsets = getCatchOffsets(n, limit);
+        expect(offsets).toHaveLength(getCatchCount(n, limit));
+        const cuts = [0, ...offsets, n];
+        for (let i = 1; i < cuts.length; i++) {
+          expect(cuts[i] - cuts[i - 1]).toBeGreaterThan(0);
+          expect(cuts[i] - cuts[i - 1]).toBeLessThanOrEqual(limit);
+        }
+      }),
+    );
+  });
+});
+
+describe("getFloatLimitStitches: the stitch limit or 2.5 cm at gauge, whichever is fewer", () => {
+  test.each([
+    // (common practice: ~1 in / 2.5 cm or 5 stitches)
+    [20, 5, 2.5, 5], // 2.5 cm × 2 sts/cm = 5
+    [28, 5, 2.5, 5], // 7 stitches in 2.5 cm, but 5 is fewer
+    [12, 5, 2.5, 3], // 2.5 × 1.2 = 3
+    [14, 5, 2.5, 3], // 2.5 × 1.4 = 3.5 → 3 whole stitches
+    [32, 7, 2.5, 7], // a studio setting of 7 stitches at a fine gauge (8 in 2.5 cm)
+    [4, 5, 2.5, 1], // jumbo yarn: less than one stitch in 2.5 cm still allows 1
+  ])("%d sts/10 cm, %d sts, %d cm → %d", (gauge, stitches, cm, expected) => {
+    expect(getFloatLimitStitches(gauge, stitches, cm)).toBe(expected);
+  });
+});
+
+describe("getRowFloats", () => {
+  // Rows are written in knitting order (first character = stitch 1); limit 5 unless stated.
+  test.each([
+    // one colour only: the other strand is not carried, so nothing floats
+    ["aaaaaaaaaaaa", false, 0, 0],
+    ["aaaaaaaaaaaa", true, 0, 0],
+    // b at stitch 1 then six a: the a-run is a float of 6 → 1 catch, flat or round
+    ["baaaaaa", false, 6, 1],
+    ["baaaaaa", true, 6, 1],
+    // four a, b, three a: flat the runs are 4 and 3; in the round 3 + 4 join into 7 → 1 catch
+    ["aaaabaaa", false, 4, 0],
+    ["aaaabaaa", true, 7, 1],
+    // five a, b, five a: flat 5 and 5 are fine; round 10 → ceil(10/5) - 1 = 1 catch
+    ["aaaaabaaaaa", false, 5, 0],
+    ["aaaaabaaaaa", true, 10, 1],
+    // alternating stitches never float more than one
+    ["abababab", true, 1, 0],
+    // a run of 12 b behind which a is carried: 2 catches; plus an a-run of 2
+    ["aabbbbbbbbbbbb", false, 12, 2],
+  ])("%s (round: %s) → longest %i, catches %i", (text, round, longest, catches) => {
+    const f = getRowFloats(row(text), 5, round);
+    expect(f.longest).toBe(longest);
+    expect(f.catches).toBe(catches);
+  });
+
+  test("a wrapped float starts after the break and its catches wrap past the end", () => {
+    // stitch 1..3 a, 4 b, 5..8 a: the round float starts at stitch 5 (index 4) and runs 7 stitches.
+    const f = getRowFloats(row("aaabaaaa"), 5, true);
+    expect(f.long).toEqual([{ carried: 1, start: 4, length: 7, catchAt: [0] }]); // round(7/2) = 4 → index (4 + 4) % 8 = 0
+  });
+
+  test("the carried colour is the one that is not knitted in the run", () => {
+    const f = getRowFloats(row("abbbbbbba"), 5, false);
+    expect(f.long).toHaveLength(1);
+    expect(f.long[0]).toMatchObject({ carried: 0, start: 1, length: 7 });
+  });
+
+  test("catches over the row equal the sum over runs, and flat never needs more than the round", () => {
+    fc.assert(
+      fc.property(fc.array(fc.integer({ min: 0, max: 1 }), { minLength: 1, maxLength: 60 }), fc.integer({ min: 1, max: 8 }), (r, limit) => {
+        const flat = getRowFloats(r, limit, false);
+        const round = getRowFloats(r, limit, true);
+        expect(flat.long.reduce((s, f) => s + getCatchCount(f.length, limit), 0)).toBe(flat.catches);
+        expect(round.catches).toBeGreaterThanOrEqual(flat.catches);
+        expect(round.longest).toBeGreaterThanOrEqual(flat.longest);
+        for (const f of [...flat.long, ...round.long]) expect(f.length).toBeGreaterThan(limit);
+      }),
+    );
+  });
+});
