@@ -4,6 +4,12 @@
 import { hashPassword } from "better-auth/crypto";
 import { and, eq, sql } from "drizzle-orm";
 import { closeDb, db } from "./index";
+import type { SeedContext } from "./seed-parts/context";
+import { seedDesigns } from "./seed-parts/designs";
+import { seedJourney } from "./seed-parts/journey";
+import { seedPayments } from "./seed-parts/payments";
+import { seedProduction } from "./seed-parts/production";
+import { seedQuotes } from "./seed-parts/quotes";
 import {
   account,
   commissionEvents,
@@ -39,6 +45,7 @@ const YARNS = [
 ];
 
 interface DemoCommission {
+  key: string;
   client: "priya" | "elias" | "saoirse";
   title: string;
   garment: GarmentKind;
@@ -53,6 +60,7 @@ interface DemoCommission {
 
 const COMMISSIONS: DemoCommission[] = [
   {
+    key: "priya-mittens",
     client: "priya",
     title: "Snowflake mittens with P·O",
     garment: "mittens",
@@ -65,6 +73,7 @@ const COMMISSIONS: DemoCommission[] = [
     path: ["enquiry", "quoting", "quote_sent"],
   },
   {
+    key: "elias-hat",
     client: "elias",
     title: "Watch cap with E.B. band",
     garment: "hat",
@@ -77,6 +86,7 @@ const COMMISSIONS: DemoCommission[] = [
     path: ["enquiry", "quoting", "quote_sent", "booked", "designing", "proof_sent", "proof_approved", "in_production"],
   },
   {
+    key: "saoirse-baby",
     client: "saoirse",
     title: "First mittens for Aoife",
     garment: "mittens",
@@ -89,6 +99,7 @@ const COMMISSIONS: DemoCommission[] = [
     path: ["enquiry"],
   },
   {
+    key: "priya-pullover",
     client: "priya",
     title: "Yoke pullover with a fox band",
     garment: "pullover",
@@ -101,6 +112,7 @@ const COMMISSIONS: DemoCommission[] = [
     path: ["enquiry", "quoting", "quote_sent", "booked", "designing", "proof_sent"],
   },
   {
+    key: "elias-reindeer",
     client: "elias",
     title: "Reindeer mittens (last winter)",
     garment: "mittens",
@@ -166,6 +178,7 @@ export async function seedDemo(): Promise<{ created: boolean }> {
         .returning();
       clientIds[p.key] = c.id;
     }
+    const yarnIds: Record<string, string> = {};
     for (const [i, y] of YARNS.entries()) {
       const [row] = await tx
         .insert(yarns)
@@ -181,9 +194,11 @@ export async function seedDemo(): Promise<{ created: boolean }> {
           priceMinor: 850,
         })
         .returning();
+      yarnIds[y.colourName] = row.id;
       await tx.insert(yarnLots).values({ yarnId: row.id, lotCode: `SK${24 + i}A`, stockSkeins: 4 + ((i * 3) % 7) });
     }
     let number = 1;
+    const commissionIds: Record<string, string> = {};
     for (const c of COMMISSIONS) {
       const [row] = await tx
         .insert(commissions)
@@ -202,6 +217,7 @@ export async function seedDemo(): Promise<{ created: boolean }> {
           brief: c.brief,
         })
         .returning();
+      commissionIds[c.key] = row.id;
       const start = Date.parse(c.neededBy) - 60 * 86_400_000;
       for (let k = 0; k < c.path.length; k++) {
         await tx.insert(commissionEvents).values({
@@ -216,6 +232,13 @@ export async function seedDemo(): Promise<{ created: boolean }> {
       }
     }
     await tx.update(studios).set({ nextCommissionNo: number }).where(and(eq(studios.id, studio.id)));
+    const ctx: SeedContext = { studioId: studio.id, userIds: ids, clientIds, commissionIds, yarnIds };
+    // Each area adds its own demo rows (db/seed-parts/), in this order.
+    await seedDesigns(tx, ctx);
+    await seedQuotes(tx, ctx);
+    await seedJourney(tx, ctx);
+    await seedPayments(tx, ctx);
+    await seedProduction(tx, ctx);
     return { created: true };
   });
 }

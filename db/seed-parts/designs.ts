@@ -1,0 +1,4 @@
+import type { SeedPart } from "./context";
+
+/** Demo designs and design versions. */
+export const seedDesigns: SeedPart = async () => {};

@@ -1,0 +1,4 @@
+import type { SeedPart } from "./context";
+
+/** Demo quote versions. */
+export const seedQuotes: SeedPart = async () => {};
