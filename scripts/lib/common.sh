@@ -143,15 +143,16 @@ source_hash() {
 
 # build_app DISTDIR: next build unless the sources are unchanged since the last build there.
 build_app() {
-  local dist="$1" stamp want
+  local dist="$1" stamp want log
   stamp="$dist/.darnwell-source-hash"
+  log="$ROOT/.data/build${dist#.next}.log"
   want="$(source_hash)"
   if [ -f "$stamp" ] && [ "$(cat "$stamp")" = "$want" ] && [ -f "$dist/BUILD_ID" ]; then
     say "production build in $dist is up to date"
     return 0
   fi
   say "building the app (next build → $dist)"
-  NEXT_DIST_DIR="$dist" NEXT_TELEMETRY_DISABLED=1 npx next build >"$ROOT/.data/build.log" 2>&1 \
-    || { tail -n 40 "$ROOT/.data/build.log"; die "next build failed (full log: .data/build.log)"; }
+  NEXT_DIST_DIR="$dist" NEXT_TELEMETRY_DISABLED=1 npx next build >"$log" 2>&1 \
+    || { tail -n 40 "$log"; die "next build failed (full log: ${log#$ROOT/})"; }
   echo "$want" > "$stamp"
 }
