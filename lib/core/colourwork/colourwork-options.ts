@@ -11,10 +11,14 @@ export const DEFAULT_FLOAT_LIMIT_STITCHES = 5;
 export const DEFAULT_FLOAT_LIMIT_CM = 2.5;
 /** A single carried stretch on the wrong side longer than ~2.5 cm snags (common practice, as for floats). */
 export const DEFAULT_CARRY_LIMIT_CM = 2.5;
+export const MAX_LENGTH_LIMIT_CM = 20;
 
 // Messages written here leave the field out: the path is put in front of each when reported.
 const positive = () =>
   z.number().refine((v) => Number.isFinite(v) && v > 0, { error: (iss) => `must be more than 0 (got ${String(iss.input)})` });
+// Longer than this is not a float or a carry any more but loose yarn; it also bounds the work.
+const lengthLimit = () =>
+  positive().refine((v) => v <= MAX_LENGTH_LIMIT_CM, { error: (iss) => `must be at most ${MAX_LENGTH_LIMIT_CM} cm (got ${String(iss.input)})` });
 const nonNegative = () =>
   z.number().refine((v) => Number.isFinite(v) && v >= 0, { error: (iss) => `must be a number ≥ 0 (got ${String(iss.input)})` });
 const key = z.string().min(1, { error: "must not be empty" });
@@ -42,8 +46,8 @@ export const colourPlanOptionsSchema = z
       .min(1, { error: (iss) => `must be at least 1 (got ${String(iss.input)})` })
       .max(400, { error: (iss) => `must be at most 400 (got ${String(iss.input)})` })
       .optional(),
-    floatLimitCm: positive().optional(),
-    carryLimitCm: positive().optional(),
+    floatLimitCm: lengthLimit().optional(),
+    carryLimitCm: lengthLimit().optional(),
     tailCm: nonNegative().optional(),
     rates: ratesSchema.optional(),
   })
@@ -119,7 +123,7 @@ function resolve(chart: Chart, o: z.output<typeof darningOptionsSchema>): Resolv
   return {
     knit,
     darn,
-    inTheRound: o.inTheRound ?? true,
+    inTheRound: o.inTheRound ?? true, // mittens, hats and yokes are knitted in the round
     floatLimitStitches: o.floatLimitStitches ?? DEFAULT_FLOAT_LIMIT_STITCHES,
     floatLimitCm: o.floatLimitCm ?? DEFAULT_FLOAT_LIMIT_CM,
     carryLimitCm: o.carryLimitCm ?? DEFAULT_CARRY_LIMIT_CM,

@@ -1,7 +1,7 @@
 // Routes the needle through every stitch of one colour: one strand per connected group (the least
 // possible number of ends), each group ordered to keep the carried yarn short.
 import type { CarryGeometry } from "./carry-geometry";
-import { getComponentCarryBounds, getStitchComponents, type StitchComponents } from "./darning-bounds";
+import { getComponentCarryBounds, getStitchComponents, getTouchingGroups, type StitchComponents } from "./darning-bounds";
 import { AllPairsGuide, improveWithinStretch } from "./improve-route";
 import { EXACT_ROUTE_LIMIT, getExactOrder } from "./exact-route";
 import { RouteWorkspace } from "./route-workspace";
@@ -48,7 +48,7 @@ export function routeStitchSet(
   components: StitchComponents = getStitchComponents(set, g),
 ): ColourRoute {
   const ws = new RouteWorkspace(set, g);
-  const walker = new GroupWalker(ws);
+  const walker = new GroupWalker(ws, getTouchingGroups(set, g));
   const exactUpTo = Math.min(12, options.exactUpTo ?? EXACT_ROUTE_LIMIT);
   const maxStarts = Math.max(1, options.maxStarts ?? 8);
   const improve = options.improve ?? true;

@@ -144,9 +144,10 @@ export class RouteWorkspace {
 
   /**
    * The unworked stitches nearest to p by carry (all within a hair of the least), with that carry;
-   * for use when p touches no unworked stitch. Leaves `out` empty when none can be reached.
+   * for use when p touches no unworked stitch. With `group`, only stitches whose `groupOf` equals
+   * it count. Leaves `out` empty when none can be reached.
    */
-  nearestOpen(p: number, out: number[]): number {
+  nearestOpen(p: number, out: number[], groupOf?: Int32Array, group = -1): number {
     out.length = 0;
     const { xs, ys, idAt, width, height } = this.set;
     const g = this.g;
@@ -161,15 +162,15 @@ export class RouteWorkspace {
       const ny = y + g.dy[o];
       if (nx < 0 || ny < 0 || nx >= width || ny >= height) continue;
       const v = idAt[ny * width + nx];
-      if (v < 0 || this.worked[v] !== 0) continue;
+      if (v < 0 || this.worked[v] !== 0 || (groupOf && groupOf[v] !== group)) continue;
       if (best === Infinity) best = len;
       out.push(v);
     }
     if (out.length > 0) return best;
-    return this.searchNearest(p, out);
+    return this.searchNearest(p, out, groupOf, group);
   }
 
-  private searchNearest(p: number, out: number[]): number {
+  private searchNearest(p: number, out: number[], groupOf: Int32Array | undefined, group: number): number {
     const { xs, ys, idAt, width, height } = this.set;
     const g = this.g;
     const epoch = ++this.epoch;
@@ -198,6 +199,8 @@ export class RouteWorkspace {
         if (nx < 0 || ny < 0 || nx >= width || ny >= height) continue;
         const v = idAt[ny * width + nx];
         if (v < 0) continue;
+        // Unworked stitches outside the group are neither targets nor ways through.
+        if (groupOf && worked[v] === 0 && groupOf[v] !== group) continue;
         const nd = key + g.len[o];
         if (stamp[v] !== epoch || nd < dist[v] - EPS) {
           stamp[v] = epoch;

@@ -2,7 +2,9 @@
 // there is one, otherwise carry to the nearest new stitch. Which touching stitch to take matters:
 // where the stitch just worked splits the unworked stitches into separate pockets, the smallest
 // pocket is finished first (so the walk never has to come back far for it), and otherwise the
-// stitch with the fewest unworked neighbours is taken (so none is left stranded behind).
+// stitch with the fewest unworked neighbours is taken (so none is left stranded behind). When the
+// walk has to carry, it finishes the touching group it is in before it moves on to another.
+import type { StitchComponents } from "./darning-bounds";
 import type { RouteWorkspace } from "./route-workspace";
 
 const RING_DX = [1, 1, 0, -1, -1, -1, 0, 1];
@@ -17,9 +19,15 @@ export class GroupWalker {
   private floodEpoch = 0;
   private queue: Int32Array;
   private readonly near: number[] = [];
+  /** touching group of each stitch, and unworked stitches left in each group */
+  private readonly groupOf: Int32Array;
+  private readonly open: Int32Array;
 
-  constructor(ws: RouteWorkspace) {
+  constructor(ws: RouteWorkspace, groups: StitchComponents) {
     this.ws = ws;
+    this.groupOf = groups.of;
+    this.open = new Int32Array(groups.count);
+    for (let gi = 0; gi < groups.count; gi++) this.open[gi] = groups.start[gi + 1] - groups.start[gi];
     this.floodMark = new Int32Array(ws.set.n);
     this.floodLabel = new Int32Array(ws.set.n);
     this.queue = new Int32Array(64);
@@ -33,24 +41,32 @@ export class GroupWalker {
     let total = 0;
     let p = start;
     let dir = -1;
+    const { groupOf, open } = this;
     ws.worked[p] = 1;
+    open[groupOf[p]]--;
     order[0] = p;
     for (let k = 1; k < m; k++) {
       let q = this.chooseNeighbour(p, dir);
       if (q >= 0) {
         dir = ringIndex(ws.set.xs[q] - ws.set.xs[p], ws.set.ys[q] - ws.set.ys[p]);
       } else {
-        const carry = ws.nearestOpen(p, this.near);
+        const group = groupOf[p];
+        let carry = open[group] > 0 ? ws.nearestOpen(p, this.near, groupOf, group) : Infinity;
+        if (this.near.length === 0 || open[group] === 0) carry = ws.nearestOpen(p, this.near);
         if (this.near.length === 0) throw new RangeError("the stitches given to the walk are not one connected group");
         q = this.pickJump(this.near);
         total += carry;
         dir = -1;
       }
       ws.worked[q] = 1;
+      open[groupOf[q]]--;
       order[k] = q;
       p = q;
     }
-    for (let i = 0; i < m; i++) ws.worked[members[i]] = 0;
+    for (let i = 0; i < m; i++) {
+      ws.worked[members[i]] = 0;
+      open[groupOf[members[i]]]++;
+    }
     return { order, carryCm: total };
   }
 
