@@ -115,11 +115,16 @@ describe("forms, public pages and errors", () => {
       await page.getByLabel("E-mail").fill("elias@example.test");
       await page.getByRole("button", { name: "Send me a reset link" }).click();
       await expect.poll(() => page.getByText("Check your inbox").count(), POLL).toBe(1);
-      await page.goto("/local-inbox");
+      // The outbox sends within a few seconds; reload the inbox until Elias's message is there.
+      const message = page.locator("li", { hasText: "To elias@example.test" }).filter({ hasText: "Reset your Darnwell password" });
+      await expect
+        .poll(async () => {
+          await page.goto("/local-inbox");
+          return message.count();
+        }, POLL)
+        .toBeGreaterThan(0);
       await expectAccessible(page);
-      const link = page.locator("a[href*='/api/auth/reset-password/']").first();
-      await expect.poll(() => link.count(), POLL).toBeGreaterThan(0);
-      await link.click();
+      await message.first().locator("a[href*='/api/auth/reset-password/']").first().click();
       await page.waitForURL(/\/reset-password\?token=/);
       await page.getByLabel("New password", { exact: true }).fill("darnwell-demo");
       await page.getByLabel("New password again").fill("darnwell-demo");
