@@ -1,0 +1,53 @@
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { ChartEditor } from "@/components/chart-editor/chart-editor";
+import { PageTitle } from "@/components/ui/card";
+import { buttonClass } from "@/components/ui/button";
+import type { StoredEntry } from "@/components/chart-editor/editor-model";
+import { can } from "@/lib/server/authz";
+import { getDesignWithHead, listStudioYarnColours } from "@/lib/server/designs";
+import { requireStudioMember } from "@/lib/server/page-guards";
+import { loadStudioSettings } from "@/lib/server/settings";
+
+export const metadata = { title: "Design" };
+
+export default async function DesignPage({ params }: { params: Promise<{ id: string }> }) {
+  const { id } = await params;
+  const { actor } = await requireStudioMember(`/studio/designs/${id}`);
+  if (!/^[0-9a-f-]{36}$/i.test(id)) notFound();
+  const found = await getDesignWithHead(actor, id).catch(() => null);
+  if (!found || !found.head) notFound();
+  const { design, head } = found;
+  const [yarns, settings] = await Promise.all([listStudioYarnColours(actor, design.studioId), loadStudioSettings(design.studioId)]);
+  const locked = design.lockedVersionId !== null || !can(actor, "commission.work", design.studioId);
+  return (
+    <>
+      <PageTitle
+        title={design.title}
+        lead={
+          design.commissionId ? (
+            <>
+              Commission {design.commissionNumber}: <Link href={`/studio/commissions/${design.commissionId}`}>{design.commissionTitle}</Link>
+            </>
+          ) : undefined
+        }
+      />
+      <p className="-mt-3 mb-4">
+        <a className={buttonClass("secondary")} href={`/api/designs/${design.id}/work-sheet`}>
+          Download the work sheet (PDF)
+        </a>
+      </p>
+      <ChartEditor
+        key={head.id}
+        designId={design.id}
+        headVersionId={head.id}
+        headNumber={head.number}
+        entries={head.charts as StoredEntry[]}
+        yarns={yarns}
+        locked={locked}
+        inTheRound={design.garment !== null}
+        planDefaults={{ carryLimitCm: settings.carryLimitCm, floatLimitStitches: settings.floatLimitStitches, floatLimitCm: settings.floatLimitCm }}
+      />
+    </>
+  );
+}

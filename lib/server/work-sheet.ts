@@ -1,0 +1,99 @@
+import "server-only";
+// Builds the work sheet PDF of a design's head version: charts, colour key, knitted pair, catches
+// and darning route maps, planned with the studio's limits and rates.
+import { parseChart, serializeChart } from "@/lib/core/chart";
+import { getStitchCounts } from "@/lib/core/chart/counts";
+import { WorkSheetDocument, type WorkSheetChart } from "@/templates/pdf/work-sheet";
+import type { Actor } from "./authz";
+import { renderChartPng, svgToPng } from "./chart-png";
+import { optionsFromSettings, planChart, type PlanOptionsInput } from "./colour-plan";
+import { renderDarningMapSvg } from "./darning-map-svg";
+import { getDesignWithHead } from "./designs";
+import { notFound } from "./errors";
+import { renderPdf } from "./pdf";
+import { loadStudioSettings } from "./settings";
+
+const dataUrl = (png: Buffer) => `data:image/png;base64,${png.toString("base64")}`;
+
+export async function buildWorkSheet(actor: Actor, designId: string): Promise<{ pdf: Buffer; filename: string }> {
+  const { design, head } = await getDesignWithHead(actor, designId);
+  if (!head) throw notFound("That design's charts");
+  const settings = await loadStudioSettings(design.studioId);
+  const defaults = optionsFromSettings(settings);
+  const studioName = actor.memberships.find((m) => m.studioId === design.studioId)?.studioName ?? "";
+  const charts: WorkSheetChart[] = [];
+  for (const entry of head.charts) {
+    const chart = parseChart(entry.chart);
+    const doc = serializeChart(chart);
+    const fixed = (entry.options ?? {}) as PlanOptionsInput;
+    const plan = planChart(chart, { inTheRound: design.garment !== null, ...fixed }, defaults);
+    const counts = getStitchCounts(chart);
+    const name = (k: string) => chart.palette.find((c) => c.key === k)?.name ?? k;
+    const darned = await Promise.all(
+      plan.darning.colours.map(async (d) => ({
+        key: d.key,
+        name: d.name,
+        stitches: d.stitches,
+        ends: d.ends,
+        carryCm: d.carryCm,
+        yarnCm: d.yarnCm,
+        minutes: d.minutes,
+        strands: d.strands.map((s) => {
+          const a = s.stitches[0];
+          const b = s.stitches[s.stitches.length - 1];
+          return { from: `row ${a.row}, stitch ${a.stitch}`, to: `row ${b.row}, stitch ${b.stitch}`, stitches: s.stitches.length, carryCm: s.carryCm };
+        }),
+        mapArea: (() => {
+          const all = d.strands.flatMap((s) => s.stitches);
+          const rows = all.map((s) => s.row);
+          const sts = all.map((s) => s.stitch);
+          return all.length ? `rows ${Math.min(...rows)} to ${Math.max(...rows)}, stitches ${Math.min(...sts)} to ${Math.max(...sts)}` : "";
+        })(),
+        mapPng: dataUrl(await svgToPng(renderDarningMapSvg(doc, d, { maxWidthPx: 1000 }), { maxWidthPx: 1000 })),
+      })),
+    );
+    const limit = plan.colours.settings.floatLimitStitches;
+    charts.push({
+      label: entry.label,
+      size: `${chart.width} stitches × ${chart.height} rows`,
+      gauge: `${chart.gauge.stitchesPer10cm} sts and ${chart.gauge.rowsPer10cm} rows per 10 cm`,
+      chartPng: dataUrl(await renderChartPng(chart, { cellPx: Math.max(6, Math.min(16, Math.floor(1000 / chart.width))) })),
+      key: chart.palette.map((c, i) => ({
+        key: c.key,
+        name: c.name,
+        hex: c.hex,
+        stitches: counts[i],
+        role: plan.colours.knit.includes(c.key) ? "knitted" : counts[i] > 0 ? "duplicate stitch" : "not used",
+      })),
+      knit: plan.colours.knit.map(name).join(" and "),
+      darn: plan.colours.darn.length ? `Darn afterwards: ${plan.colours.darn.map(name).join(", ")}.` : "Nothing is darned afterwards.",
+      floatRule: `A float longer than ${limit} stitches is caught (${plan.colours.settings.inTheRound ? "knitted in the round: rows wrap" : "knitted flat"}).`,
+      catchRows: plan.colours.rows
+        .filter((r) => r.catches > 0)
+        .map((r) => ({ row: r.row, longestFloat: r.longestFloat, catches: r.catches, behind: r.floats.flatMap((f) => f.catchStitches).join(", ") })),
+      totalCatches: plan.colours.totals.catches,
+      darned,
+      totals: {
+        stitches: plan.darning.totals.stitches,
+        ends: plan.darning.totals.ends,
+        endsBound: plan.darning.totals.lowerBound.ends,
+        carryCm: plan.darning.totals.carryCm,
+        yarnCm: plan.darning.totals.yarnCm,
+        minutes: plan.darning.totals.minutes,
+        savedEnds: plan.darning.totals.saved.ends,
+        savedMinutes: plan.darning.totals.saved.minutes,
+      },
+    });
+  }
+  const pdf = await renderPdf(
+    WorkSheetDocument({
+      studioName,
+      title: design.title,
+      commission: design.commissionNumber ? `commission ${design.commissionNumber}: ${design.commissionTitle}` : "no commission",
+      version: head.number,
+      printedOn: new Date().toISOString().slice(0, 10),
+      charts,
+    }),
+  );
+  return { pdf, filename: `work-sheet-${design.title}-v${head.number}.pdf` };
+}

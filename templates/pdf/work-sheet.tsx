@@ -1,0 +1,175 @@
+// The work sheet a maker prints: per chart, the chart with symbols and its colour key, the knitted
+// pair, float catches per row, and for every darned colour a numbered route map with ends and yarn.
+import { Document, Image, Page, StyleSheet, Text, View } from "@react-pdf/renderer";
+import type { ReactNode } from "react";
+
+export interface WorkSheetColourKey {
+  key: string;
+  name: string;
+  hex: string;
+  stitches: number;
+  /** "knitted" or "darned" */
+  role: string;
+}
+
+export interface WorkSheetDarnedColour {
+  key: string;
+  name: string;
+  stitches: number;
+  strands: { from: string; to: string; stitches: number; carryCm: number }[];
+  ends: number;
+  carryCm: number;
+  yarnCm: number;
+  minutes: number;
+  /** where the map sits on the chart, e.g. "rows 14 to 22, stitches 9 to 21" */
+  mapArea: string;
+  /** PNG data URL of the numbered route map */
+  mapPng: string;
+}
+
+export interface WorkSheetChart {
+  label: string;
+  size: string;
+  gauge: string;
+  /** PNG data URL of the chart with symbols, numbers and key */
+  chartPng: string;
+  key: WorkSheetColourKey[];
+  knit: string;
+  darn: string;
+  floatRule: string;
+  catchRows: { row: number; longestFloat: number; catches: number; behind: string }[];
+  totalCatches: number;
+  darned: WorkSheetDarnedColour[];
+  totals: { stitches: number; ends: number; endsBound: number; carryCm: number; yarnCm: number; minutes: number; savedEnds: number; savedMinutes: number };
+}
+
+export interface WorkSheetProps {
+  studioName: string;
+  title: string;
+  commission: string;
+  version: number;
+  printedOn: string;
+  charts: WorkSheetChart[];
+}
+
+const styles = StyleSheet.create({
+  page: { fontFamily: "Atkinson Hyperlegible", fontSize: 10, padding: 36, color: "#222222", lineHeight: 1.35 },
+  h1: { fontFamily: "Fraunces", fontSize: 18, lineHeight: 1.3, marginBottom: 4 },
+  h2: { fontFamily: "Fraunces", fontSize: 14, marginTop: 10, marginBottom: 4 },
+  h3: { fontWeight: 700, fontSize: 11, marginTop: 8, marginBottom: 3 },
+  small: { fontSize: 8.5, color: "#555555" },
+  row: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: "#BBBBBB", paddingVertical: 2 },
+  head: { flexDirection: "row", borderBottomWidth: 1, borderBottomColor: "#555555", paddingVertical: 2, fontWeight: 700 },
+  swatch: { width: 10, height: 10, borderWidth: 0.5, borderColor: "#333333", marginRight: 4 },
+  block: { marginTop: 6 },
+  strong: { fontWeight: 700 },
+});
+
+const fmt = (n: number) => n.toLocaleString("en-GB", { maximumFractionDigits: 1 });
+
+function Cell({ w, children, bold }: { w: number; children: ReactNode; bold?: boolean }) {
+  return <Text style={{ width: w, ...(bold ? { fontWeight: 700 } : {}) }}>{children}</Text>;
+}
+
+export function WorkSheetDocument(p: WorkSheetProps) {
+  return (
+    <Document title={`Work sheet: ${p.title}`} author={p.studioName} language="en-GB">
+      {p.charts.map((c, ci) => (
+        <Page key={ci} size="A4" style={styles.page} wrap>
+          <View fixed style={{ flexDirection: "row", justifyContent: "space-between", marginBottom: 6 }}>
+            <Text style={styles.small}>
+              {p.studioName} · work sheet · {p.commission}
+            </Text>
+            <Text style={styles.small} render={({ pageNumber, totalPages }) => `page ${pageNumber} of ${totalPages}`} />
+          </View>
+          <Text style={styles.h1}>
+            {p.title}: {c.label}
+          </Text>
+          <Text style={styles.small}>
+            Version {p.version} · printed {p.printedOn} · {c.size} · {c.gauge}
+          </Text>
+          <Text style={styles.block}>
+            Rows are numbered from the bottom and stitches from the right, as knitted. Each colour has its own symbol, so the chart reads in black and white.
+          </Text>
+          <Image src={c.chartPng} style={{ marginTop: 6, maxHeight: 420, objectFit: "contain" }} />
+
+          <Text style={styles.h2}>Colour key</Text>
+          <View style={styles.head}>
+            <Cell w={40}>Key</Cell>
+            <Cell w={170}>Colour</Cell>
+            <Cell w={80}>Hex</Cell>
+            <Cell w={70}>Stitches</Cell>
+            <Cell w={100}>Worked by</Cell>
+          </View>
+          {c.key.map((k) => (
+            <View key={k.key} style={styles.row}>
+              <View style={{ width: 40, flexDirection: "row" }}>
+                <View style={[styles.swatch, { backgroundColor: k.hex }]} />
+                <Text>{k.key}</Text>
+              </View>
+              <Cell w={170}>{k.name}</Cell>
+              <Cell w={80}>{k.hex}</Cell>
+              <Cell w={70}>{k.stitches}</Cell>
+              <Cell w={100}>{k.role}</Cell>
+            </View>
+          ))}
+
+          <Text style={styles.h2}>Knitted pair</Text>
+          <Text>Knit in {c.knit}.</Text>
+          <Text>{c.darn}</Text>
+
+          <Text style={styles.h2}>Float catches per row</Text>
+          <Text style={styles.small}>{c.floatRule}</Text>
+          {c.catchRows.length ? (
+            <View style={styles.block}>
+              <View style={styles.head}>
+                <Cell w={60}>Row</Cell>
+                <Cell w={90}>Longest float</Cell>
+                <Cell w={70}>Catches</Cell>
+                <Cell w={290}>Catch behind stitches</Cell>
+              </View>
+              {c.catchRows.map((r) => (
+                <View key={r.row} style={styles.row} wrap={false}>
+                  <Cell w={60}>{`Row ${r.row}`}</Cell>
+                  <Cell w={90}>{`${r.longestFloat} sts`}</Cell>
+                  <Cell w={70}>{r.catches}</Cell>
+                  <Cell w={290}>{r.behind}</Cell>
+                </View>
+              ))}
+              <Text style={styles.block}>{`${c.totalCatches} catches in all.`}</Text>
+            </View>
+          ) : (
+            <Text style={styles.block}>No float is over the limit: no catches needed.</Text>
+          )}
+
+          <Text style={styles.h2}>Duplicate stitch</Text>
+          {c.darned.length === 0 ? <Text>Nothing to darn: every stitch is knitted.</Text> : null}
+          {c.darned.map((d) => (
+            <View key={d.key} break={c.darned.length > 0} style={{ marginTop: 4 }}>
+              <Text style={styles.h3}>{`Darning ${d.name} (${d.key}): ${d.stitches} stitches`}</Text>
+              <Text>
+                {`${d.strands.length} strand${d.strands.length === 1 ? "" : "s"} · ${d.ends} ends to weave in · ${fmt(d.carryCm)} cm carried · yarn ${fmt(d.yarnCm)} cm (${fmt(d.yarnCm / 100)} m) · about ${fmt(d.minutes)} minutes`}
+              </Text>
+              <Text style={styles.small}>
+                The map shows {d.mapArea}. Work the stitches in the order numbered. A ring marks a strand&apos;s first stitch, a square its last; dashed lines are yarn carried on the wrong side.
+              </Text>
+              <Image src={d.mapPng} style={{ marginTop: 4, maxHeight: 480, objectFit: "contain" }} />
+              {d.strands.map((s, i) => (
+                <Text key={i} style={styles.small}>
+                  {`Strand ${i + 1}: from ${s.from} to ${s.to}, ${s.stitches} stitches, ${fmt(s.carryCm)} cm carried`}
+                </Text>
+              ))}
+            </View>
+          ))}
+          <View style={styles.block} wrap={false}>
+            <Text style={styles.h3}>Totals for {c.label}</Text>
+            <Text>
+              {`Darned stitches ${c.totals.stitches} · ends ${c.totals.ends} (fewest possible ${c.totals.endsBound}) · carried ${fmt(c.totals.carryCm)} cm · darning yarn ${fmt(c.totals.yarnCm)} cm · about ${fmt(c.totals.minutes)} minutes`}
+            </Text>
+            <Text>{`Saved versus row by row: ${c.totals.savedEnds} ends and ${fmt(c.totals.savedMinutes)} minutes.`}</Text>
+          </View>
+        </Page>
+      ))}
+    </Document>
+  );
+}
