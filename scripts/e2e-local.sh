@@ -23,8 +23,18 @@ cp tsconfig.json "$ROOT/.data/tsconfig.$NAME.json"
 build_app ".next-$NAME"; rc=$?
 cp "$ROOT/.data/tsconfig.$NAME.json" tsconfig.json
 [ $rc -eq 0 ] || exit 1
+# Optional: a payments fake of this run's own (E2E_PAYMENTS_PORT=12150), delivering to this app.
+if [ -n "${E2E_PAYMENTS_PORT:-}" ]; then
+  ensure_port_free "$E2E_PAYMENTS_PORT" "this run's payments fake"
+  export STRIPE_SECRET_KEY="sk_test_e2e_$(node -e 'console.log(require("crypto").randomBytes(16).toString("hex"))')"
+  export STRIPE_WEBHOOK_SECRET="whsec_e2e_$(node -e 'console.log(require("crypto").randomBytes(16).toString("hex"))')"
+  export STRIPE_API_URL="http://127.0.0.1:$E2E_PAYMENTS_PORT"
+  setsid node --import tsx scripts/fakes/payments.ts --port "$E2E_PAYMENTS_PORT" --webhook-url "$BETTER_AUTH_URL/api/payments/webhook" >"$ROOT/.data/payments-$NAME.log" 2>&1 &
+  PAYFAKE=$!
+  wait_http "$STRIPE_API_URL/health" 30 || die "the payments fake did not start"
+fi
 NEXT_DIST_DIR=".next-$NAME" NODE_ENV=production AUTH_SIGNIN_LIMIT=500 setsid npx next start -H 127.0.0.1 -p "$PORT" >"$ROOT/.data/app-$NAME.log" 2>&1 &
 APP=$!
-trap 'kill -TERM -- -$APP 2>/dev/null' EXIT
+trap 'kill -TERM -- -$APP 2>/dev/null; [ -n "${PAYFAKE:-}" ] && kill -TERM -- -$PAYFAKE 2>/dev/null' EXIT
 wait_http "http://127.0.0.1:$PORT/api/health" 90 || { tail -n 30 "$ROOT/.data/app-$NAME.log"; die "app did not start"; }
 E2E_BASE_URL="http://127.0.0.1:$PORT" npx vitest run --config vitest.e2e.config.mts "$@"

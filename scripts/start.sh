@@ -78,7 +78,21 @@ else
 fi
 
 # --- payments (slot: the local payments fake is started here) --------------------------------
-PAYMENTS_WHERE="not configured yet"
+PAY_PORT="${DARNWELL_PAY_PORT:-12111}"
+if [ -z "${STRIPE_SECRET_KEY:-}" ]; then
+  ensure_port_free "$PAY_PORT" "the local payments service"
+  # Fresh test keys for this run (local only); the fake reads them from the environment.
+  export STRIPE_SECRET_KEY="sk_test_local_$(node -e 'console.log(require("crypto").randomBytes(16).toString("hex"))')"
+  export STRIPE_WEBHOOK_SECRET="whsec_local_$(node -e 'console.log(require("crypto").randomBytes(16).toString("hex"))')"
+  export STRIPE_API_URL="http://127.0.0.1:$PAY_PORT"
+  setsid node --import tsx scripts/fakes/payments.ts --port "$PAY_PORT" --webhook-url "$BETTER_AUTH_URL/api/payments/webhook" \
+    --store "$DATA/payments.json" >"$DATA/payments.log" 2>&1 &
+  PIDS+=($!)
+  wait_http "$STRIPE_API_URL/health" 30 || die "the local payments service did not start (see .data/payments.log)"
+  PAYMENTS_WHERE="local payments fake at $STRIPE_API_URL (test card 4242 4242 4242 4242 pays, 4000 0000 0000 0002 is declined; state in .data/payments.json)"
+else
+  PAYMENTS_WHERE="Stripe with STRIPE_SECRET_KEY${STRIPE_API_URL:+ at $STRIPE_API_URL}"
+fi
 
 # --- schema, demo data, build -------------------------------------------------------------
 say "applying migrations"
@@ -99,7 +113,7 @@ cat <<INFO
   Mail                    $MAIL_WHERE
   Object storage          $STORAGE_WHERE
   Payments                $PAYMENTS_WHERE
-  Logs                    .data/app.log, .data/mail.log, .data/storage.log, .data/pg/server.log
+  Logs                    .data/app.log, .data/mail.log, .data/storage.log, .data/payments.log, .data/pg/server.log
 
 INFO
 if [ "$DARNWELL_DEMO" = "1" ]; then

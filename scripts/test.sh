@@ -47,6 +47,15 @@ setsid node --import tsx scripts/fakes/storage.ts --port "$S3_PORT" --dir "$TMP/
 PIDS+=($!)
 wait_http "http://127.0.0.1:$S3_PORT/" 30 || die "the local object storage did not start"
 # slot: the local payments fake is started here
+PAY_PORT="${DARNWELL_TEST_PAY_PORT:-12112}"
+ensure_port_free "$PAY_PORT" "the local payments service"
+export STRIPE_SECRET_KEY="sk_test_run_$(node -e 'console.log(require("crypto").randomBytes(16).toString("hex"))')"
+export STRIPE_WEBHOOK_SECRET="whsec_run_$(node -e 'console.log(require("crypto").randomBytes(16).toString("hex"))')"
+export STRIPE_API_URL="http://127.0.0.1:$PAY_PORT"
+setsid node --import tsx scripts/fakes/payments.ts --port "$PAY_PORT" --webhook-url "http://127.0.0.1:$APP_PORT/api/payments/webhook" \
+  --store "$TMP/payments.json" >"$TMP/payments.log" 2>&1 &
+PIDS+=($!)
+wait_http "$STRIPE_API_URL/health" 30 || die "the local payments service did not start"
 
 export S3_ENDPOINT="http://127.0.0.1:$S3_PORT"
 export DATABASE_URL="postgres://darnwell@127.0.0.1:$PG_PORT/darnwell_test"

@@ -1,0 +1,38 @@
+import { notFound } from "next/navigation";
+import { eq } from "drizzle-orm";
+import { PageTitle } from "@/components/ui/card";
+import { db } from "@/db";
+import { studios } from "@/db/schema";
+import { rateSources, RATE_KEYS } from "@/lib/core/labour/default-rates";
+import { minorToDecimalString } from "@/lib/core/pricing/format-money";
+import { can } from "@/lib/server/authz";
+import { requireStudioMember } from "@/lib/server/page-guards";
+import { loadStudioSettings } from "@/lib/server/settings";
+import { SettingsForm } from "./settings-form";
+
+export const metadata = { title: "Settings" };
+
+export default async function SettingsPage() {
+  const { actor, membership } = await requireStudioMember("/studio/settings");
+  if (!can(actor, "studio.settings", membership.studioId)) notFound();
+  const settings = await loadStudioSettings(membership.studioId);
+  const [s] = await db.select({ currency: studios.currency }).from(studios).where(eq(studios.id, membership.studioId));
+  const values: Record<string, string> = {
+    hourlyRate: minorToDecimalString(settings.hourlyRateMinor, s.currency),
+    pricePolicy: settings.pricePolicy,
+    taxRatePercent: String(settings.taxRatePercent),
+    pricesIncludeTax: settings.pricesIncludeTax ? "yes" : "no",
+    depositPercent: String(settings.depositPercent),
+    designFee: minorToDecimalString(settings.designFeeMinor, s.currency),
+    quoteValidDays: String(settings.quoteValidDays),
+    depositRefundBeforeKnittingPercent: String(settings.depositRefundBeforeKnittingPercent),
+  };
+  for (const k of RATE_KEYS) values[`rate_${k}`] = String(settings.rates[k]);
+  const rates = RATE_KEYS.map((k) => ({ key: k, basis: rateSources[k].basis, note: rateSources[k].note }));
+  return (
+    <>
+      <PageTitle title="Studio settings" lead="Your rates, tax and deposit. Quotes already sent keep the figures they were made with." />
+      <SettingsForm currency={s.currency} defaults={values} rates={rates} />
+    </>
+  );
+}

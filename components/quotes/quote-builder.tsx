@@ -1,0 +1,395 @@
+"use client";
+// The quote builder: every change is priced at once in the browser by the same pure core the
+// server uses (composeQuote), with a note of what changed since the last saved version.
+import { useRouter } from "next/navigation";
+import { useMemo, useState } from "react";
+import { Button } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
+import { Notice } from "@/components/ui/notice";
+import type { PieceFeatures } from "@/lib/core/labour/piece-features";
+import { composeQuote, type QuoteDraft, type QuotePolicy } from "@/lib/core/pricing/compose-quote";
+import { diffQuotes } from "@/lib/core/pricing/diff-quotes";
+import { explainChange } from "@/lib/core/pricing/explain-change";
+import { formatMoney, minorToDecimalString } from "@/lib/core/pricing/format-money";
+import { majorToMinor } from "@/lib/schemas/money";
+
+interface YarnOption {
+  id: string;
+  name: string;
+  colourName: string;
+  priceMinor: number;
+}
+
+const FEATURE_FIELDS: { key: keyof PieceFeatures; label: string; step?: string }[] = [
+  { key: "proofRounds", label: "Proof rounds" },
+  { key: "plainStitches", label: "Plain stitches" },
+  { key: "strandedStitches", label: "Stranded stitches" },
+  { key: "floatCatches", label: "Float catches" },
+  { key: "shapingRounds", label: "Shaping rounds" },
+  { key: "thumbs", label: "Thumbs" },
+  { key: "duplicateStitches", label: "Duplicate stitches" },
+  { key: "ends", label: "Ends to weave in" },
+  { key: "carryCm", label: "Carry (cm)", step: "0.1" },
+];
+
+type MoneyText = { designFee: string; shipping: string; discount: string; rushFee: string; extras: { label: string; amount: string }[] };
+
+export function QuoteBuilder(props: {
+  commissionId: string;
+  policy: QuotePolicy;
+  yarns: YarnOption[];
+  initial: QuoteDraft;
+  /** the last saved or sent version's draft, to say what changed */
+  baseline: QuoteDraft | null;
+  initialValidUntil: string;
+  initialMessage: string;
+  featuresFromDesign: boolean;
+}) {
+  const { policy } = props;
+  const cur = policy.currency;
+  const toText = (minor: number | null | undefined) => (minor ? minorToDecimalString(minor, cur) : "");
+  const router = useRouter();
+  const [pieces, setPieces] = useState<PieceFeatures[]>(props.initial.pieces);
+  const [materials, setMaterials] = useState(props.initial.materials.map((m) => ({ yarnId: m.yarnId, skeins: m.skeins })));
+  const [money, setMoney] = useState<MoneyText>({
+    designFee: toText(props.initial.designFeeMinor),
+    shipping: toText(props.initial.shippingMinor),
+    discount: toText(props.initial.discountMinor),
+    rushFee: toText(props.initial.rushFeeMinor),
+    extras: props.initial.extras.map((e) => ({ label: e.label, amount: toText(e.amountMinor) })),
+  });
+  const [requestedDate, setRequestedDate] = useState(props.initial.requestedDate ?? "");
+  const [earliestDate, setEarliestDate] = useState(props.initial.earliestDate ?? "");
+  const [validUntil, setValidUntil] = useState(props.initialValidUntil);
+  const [message, setMessage] = useState(props.initialMessage);
+  const [status, setStatus] = useState<{ tone: "error" | "success"; text: string; fieldErrors?: Record<string, string[]> } | null>(null);
+  const [busy, setBusy] = useState(false);
+
+  const parse = (text: string) => (text.trim() === "" ? 0 : majorToMinor(text, cur));
+  const moneyErrors: Record<string, string> = {};
+  for (const [k, v] of [["designFee", money.designFee], ["shipping", money.shipping], ["discount", money.discount], ["rushFee", money.rushFee]] as const) {
+    if (parse(v) === null) moneyErrors[k] = "Enter an amount like 12 or 12.50.";
+  }
+  money.extras.forEach((e, i) => {
+    if (parse(e.amount) === null) moneyErrors[`extras.${i}`] = "Enter an amount like 4 or 4.50.";
+  });
+
+  const yarnById = useMemo(() => new Map(props.yarns.map((y) => [y.id, y])), [props.yarns]);
+  const draft: QuoteDraft = {
+    pieces,
+    materials: materials
+      .filter((m) => yarnById.has(m.yarnId))
+      .map((m) => {
+        const y = yarnById.get(m.yarnId)!;
+        return { yarnId: y.id, label: `${y.name}, ${y.colourName} (skeins)`, skeins: m.skeins, unitPriceMinor: y.priceMinor };
+      }),
+    extras: money.extras.map((e) => ({ label: e.label, amountMinor: parse(e.amount) ?? 0 })),
+    designFeeMinor: parse(money.designFee) ?? 0,
+    shippingMinor: parse(money.shipping) ?? 0,
+    discountMinor: parse(money.discount) ?? 0,
+    requestedDate: requestedDate || null,
+    earliestDate: earliestDate || null,
+    rushFeeMinor: money.rushFee.trim() ? (parse(money.rushFee) ?? null) : null,
+  };
+
+  let preview: ReturnType<typeof composeQuote> | null = null;
+  let previewError: string | null = null;
+  try {
+    preview = composeQuote(draft, policy);
+  } catch (err) {
+    previewError = (err as Error).message;
+  }
+  let changeNote: string | null = null;
+  let diffNote: string | null = null;
+  if (preview && props.baseline) {
+    try {
+      changeNote = explainChange(props.baseline.pieces, pieces, {
+        currency: cur,
+        hourlyRateMinor: policy.hourlyRateMinor,
+        rates: policy.rates,
+        labourPolicy: policy.labourPolicy,
+      }).text;
+      diffNote = diffQuotes(composeQuote(props.baseline, policy).quote, preview.quote).summary;
+    } catch {
+      changeNote = null;
+    }
+  }
+  const m = (n: number) => formatMoney(n, cur);
+
+  const setFeature = (i: number, key: keyof PieceFeatures, value: string | boolean) =>
+    setPieces((ps) => ps.map((p, j) => (j === i ? { ...p, [key]: typeof value === "boolean" ? value : value === "" ? 0 : Math.max(0, Number(value)) } : p)));
+
+  async function save(send: boolean) {
+    if (Object.keys(moneyErrors).length) {
+      setStatus({ tone: "error", text: "Some amounts need attention." });
+      return;
+    }
+    setBusy(true);
+    setStatus(null);
+    try {
+      const res = await fetch(`/api/commissions/${props.commissionId}/quotes`, {
+        method: "POST",
+        headers: { "content-type": "application/json" },
+        body: JSON.stringify({ ...draft, materials, validUntil: validUntil || null, messageToClient: message }),
+      });
+      const body = (await res.json()) as { version?: { id: string; number: number }; error?: { message: string; fieldErrors?: Record<string, string[]> } };
+      if (!res.ok || !body.version) {
+        setStatus({ tone: "error", text: body.error?.message ?? "The quote could not be saved.", fieldErrors: body.error?.fieldErrors });
+        return;
+      }
+      if (send) {
+        const sent = await fetch(`/api/quotes/${body.version.id}/send`, { method: "POST" });
+        const sb = (await sent.json()) as { error?: { message: string } };
+        if (!sent.ok) {
+          setStatus({ tone: "error", text: sb.error?.message ?? "The quote was saved but not sent." });
+          return;
+        }
+        setStatus({ tone: "success", text: `Version ${body.version.number} sent to the client.` });
+      } else {
+        setStatus({ tone: "success", text: `Draft version ${body.version.number} saved.` });
+      }
+      router.refresh();
+    } catch {
+      setStatus({ tone: "error", text: "The connection dropped; nothing was sent. Please try again." });
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  const fe = status?.fieldErrors ?? {};
+  return (
+    <div className="grid gap-6 lg:grid-cols-[3fr_2fr]">
+      <form
+        aria-label="Quote builder"
+        className="flex flex-col gap-6"
+        onSubmit={(e) => {
+          e.preventDefault();
+          void save(false);
+        }}
+      >
+        <fieldset className="flex flex-col gap-4">
+          <legend className="mb-2 text-xl">Pieces and their work</legend>
+          <p className="text-sm text-bark">
+            {props.featuresFromDesign ? "Counted from the commission's design; adjust where the chart does not tell the whole story." : "No design yet: type the counts, or start from our typical figures."}
+          </p>
+          {pieces.map((p, i) => (
+            <fieldset key={i} className="rounded-md border border-bark/30 p-3">
+              <legend className="px-1 font-semibold">{p.label || `Piece ${i + 1}`}</legend>
+              <div className="grid grid-cols-2 gap-3 sm:grid-cols-3">
+                <Field label="Name" value={p.label ?? ""} onChange={(e) => setPieces((ps) => ps.map((x, j) => (j === i ? { ...x, label: e.target.value } : x)))} errors={fe[`pieces.${i}.label`]} />
+                {FEATURE_FIELDS.map((f) => (
+                  <Field
+                    key={f.key}
+                    label={f.label}
+                    type="number"
+                    min={0}
+                    step={f.step ?? "1"}
+                    inputMode="decimal"
+                    value={String(p[f.key] ?? 0)}
+                    onChange={(e) => setFeature(i, f.key, e.target.value)}
+                    errors={fe[`pieces.${i}.${f.key}`]}
+                  />
+                ))}
+              </div>
+              <div className="mt-3 flex flex-wrap items-center gap-4">
+                <label className="flex items-center gap-2">
+                  <input type="checkbox" checked={p.newDesign ?? true} onChange={(e) => setFeature(i, "newDesign", e.target.checked)} /> New design (not a repeat of another piece)
+                </label>
+                <label className="flex items-center gap-2">
+                  <input type="checkbox" checked={p.blocked ?? true} onChange={(e) => setFeature(i, "blocked", e.target.checked)} /> Wet-blocked
+                </label>
+                {pieces.length > 1 ? (
+                  <Button variant="quiet" onClick={() => setPieces((ps) => ps.filter((_, j) => j !== i))}>
+                    Remove {p.label || `piece ${i + 1}`}
+                  </Button>
+                ) : null}
+              </div>
+            </fieldset>
+          ))}
+          <div>
+            <Button variant="secondary" onClick={() => setPieces((ps) => [...ps, { label: `Piece ${ps.length + 1}`, newDesign: false, proofRounds: 0 }])}>
+              Add a piece
+            </Button>
+          </div>
+        </fieldset>
+
+        <fieldset className="flex flex-col gap-3">
+          <legend className="mb-2 text-xl">Yarn</legend>
+          {materials.map((mat, i) => (
+            <div key={i} className="flex flex-wrap items-end gap-3">
+              <div className="flex flex-col gap-1">
+                <label htmlFor={`yarn-${i}`} className="font-semibold">
+                  Yarn {i + 1}
+                </label>
+                <select
+                  id={`yarn-${i}`}
+                  className="rounded-md border border-bark/40 bg-white px-3 py-2"
+                  value={mat.yarnId}
+                  onChange={(e) => setMaterials((ms) => ms.map((x, j) => (j === i ? { ...x, yarnId: e.target.value } : x)))}
+                >
+                  {props.yarns.map((y) => (
+                    <option key={y.id} value={y.id}>
+                      {y.name}, {y.colourName} ({m(y.priceMinor)} a skein)
+                    </option>
+                  ))}
+                </select>
+              </div>
+              <Field
+                label={`Skeins of yarn ${i + 1}`}
+                type="number"
+                min={0}
+                step="1"
+                value={String(mat.skeins)}
+                onChange={(e) => setMaterials((ms) => ms.map((x, j) => (j === i ? { ...x, skeins: Math.max(0, Math.round(Number(e.target.value) || 0)) } : x)))}
+                errors={fe[`materials.${i}.skeins`]}
+              />
+              <Button variant="quiet" onClick={() => setMaterials((ms) => ms.filter((_, j) => j !== i))}>
+                Remove yarn {i + 1}
+              </Button>
+            </div>
+          ))}
+          {props.yarns.length ? (
+            <div>
+              <Button variant="secondary" onClick={() => setMaterials((ms) => [...ms, { yarnId: props.yarns[0].id, skeins: 1 }])}>
+                Add a yarn
+              </Button>
+            </div>
+          ) : (
+            <p className="text-bark">The studio has no yarns listed yet.</p>
+          )}
+        </fieldset>
+
+        <fieldset className="grid gap-3 sm:grid-cols-2">
+          <legend className="mb-2 text-xl">Fees, shipping and discount ({cur})</legend>
+          <Field label="Design fee" inputMode="decimal" value={money.designFee} onChange={(e) => setMoney({ ...money, designFee: e.target.value })} errors={moneyErrors.designFee ? [moneyErrors.designFee] : undefined} />
+          <Field label="Shipping" inputMode="decimal" value={money.shipping} onChange={(e) => setMoney({ ...money, shipping: e.target.value })} errors={moneyErrors.shipping ? [moneyErrors.shipping] : undefined} />
+          <Field label="Discount" hint="Off the work and materials, not shipping." inputMode="decimal" value={money.discount} onChange={(e) => setMoney({ ...money, discount: e.target.value })} errors={moneyErrors.discount ? [moneyErrors.discount] : undefined} />
+          {money.extras.map((x, i) => (
+            <div key={i} className="flex flex-wrap items-end gap-2 sm:col-span-2">
+              <Field label={`Extra ${i + 1}`} value={x.label} onChange={(e) => setMoney({ ...money, extras: money.extras.map((y, j) => (j === i ? { ...y, label: e.target.value } : y)) })} />
+              <Field
+                label={`Price of extra ${i + 1}`}
+                inputMode="decimal"
+                value={x.amount}
+                onChange={(e) => setMoney({ ...money, extras: money.extras.map((y, j) => (j === i ? { ...y, amount: e.target.value } : y)) })}
+                errors={moneyErrors[`extras.${i}`] ? [moneyErrors[`extras.${i}`]] : undefined}
+              />
+              <Button variant="quiet" onClick={() => setMoney({ ...money, extras: money.extras.filter((_, j) => j !== i) })}>
+                Remove extra {i + 1}
+              </Button>
+            </div>
+          ))}
+          <div className="sm:col-span-2">
+            <Button variant="secondary" onClick={() => setMoney({ ...money, extras: [...money.extras, { label: "Gift wrap", amount: "" }] })}>
+              Add an extra
+            </Button>
+          </div>
+        </fieldset>
+
+        <fieldset className="grid gap-3 sm:grid-cols-3">
+          <legend className="mb-2 text-xl">Dates</legend>
+          <Field label="Client needs it by" type="date" value={requestedDate} onChange={(e) => setRequestedDate(e.target.value)} />
+          <Field label="Earliest date we can offer" hint="A rush fee applies when the client needs it sooner." type="date" value={earliestDate} onChange={(e) => setEarliestDate(e.target.value)} />
+          <Field label={`Rush fee (${cur})`} hint="Empty: a quarter of the labour." inputMode="decimal" value={money.rushFee} onChange={(e) => setMoney({ ...money, rushFee: e.target.value })} errors={moneyErrors.rushFee ? [moneyErrors.rushFee] : undefined} />
+          <Field label="Quote valid until" hint="Empty: the studio's default." type="date" value={validUntil} onChange={(e) => setValidUntil(e.target.value)} errors={fe.validUntil} />
+        </fieldset>
+
+        <div className="flex flex-col gap-1">
+          <label htmlFor="quote-message" className="font-semibold">
+            Message to the client
+          </label>
+          <textarea id="quote-message" rows={3} className="rounded-md border border-bark/40 px-3 py-2" value={message} onChange={(e) => setMessage(e.target.value)} />
+        </div>
+
+        {status ? <Notice tone={status.tone}>{status.text}</Notice> : null}
+        <div className="flex flex-wrap gap-3">
+          <Button type="submit" variant="secondary" disabled={busy || !preview}>
+            Save draft
+          </Button>
+          <Button disabled={busy || !preview} onClick={() => void save(true)}>
+            Save and send to the client
+          </Button>
+        </div>
+      </form>
+
+      <aside aria-labelledby="live-price" className="self-start rounded-lg border border-bark/20 bg-white p-4 lg:sticky lg:top-4">
+        <h2 id="live-price" className="mb-2 text-xl">
+          Live price
+        </h2>
+        <div aria-live="polite">
+          {previewError ? <Notice tone="error">{previewError}</Notice> : null}
+          {preview ? (
+            <>
+              {changeNote ? (
+                <p className="mb-2 rounded-md bg-fleece p-2 text-sm" data-testid="price-change">
+                  Since the last version: {changeNote}
+                </p>
+              ) : null}
+              {diffNote && diffNote !== "no change" ? <p className="mb-2 text-sm text-bark">{diffNote}</p> : null}
+              <table className="w-full text-sm">
+                <caption className="sr-only">Quote lines</caption>
+                <thead>
+                  <tr>
+                    <th scope="col" className="text-left">
+                      Line
+                    </th>
+                    <th scope="col" className="text-right">
+                      Amount
+                    </th>
+                  </tr>
+                </thead>
+                <tbody>
+                  {preview.quote.lines.map((l, i) => (
+                    <tr key={i} className="border-t border-bark/10">
+                      <td className="py-1">{l.label}</td>
+                      <td className="py-1 text-right tabular-nums">{m(l.amountMinor)}</td>
+                    </tr>
+                  ))}
+                </tbody>
+                <tfoot>
+                  {!preview.quote.pricesIncludeTax ? (
+                    <tr className="border-t border-bark/30">
+                      <th scope="row" className="text-left font-normal">
+                        Subtotal
+                      </th>
+                      <td className="text-right tabular-nums">{m(preview.quote.subtotalMinor)}</td>
+                    </tr>
+                  ) : null}
+                  <tr>
+                    <th scope="row" className="text-left font-normal">
+                      {preview.quote.pricesIncludeTax ? "Tax included" : "Tax"} ({preview.quote.taxRatePpm / 10_000} %)
+                    </th>
+                    <td className="text-right tabular-nums">{m(preview.quote.taxMinor)}</td>
+                  </tr>
+                  <tr className="border-t border-bark/30 font-semibold">
+                    <th scope="row" className="text-left">
+                      Total
+                    </th>
+                    <td className="text-right tabular-nums" data-testid="quote-total">
+                      {m(preview.quote.totalMinor)}
+                    </td>
+                  </tr>
+                  <tr>
+                    <th scope="row" className="text-left font-normal">
+                      Deposit
+                    </th>
+                    <td className="text-right tabular-nums">{m(preview.quote.depositMinor)}</td>
+                  </tr>
+                  <tr>
+                    <th scope="row" className="text-left font-normal">
+                      Balance
+                    </th>
+                    <td className="text-right tabular-nums">{m(preview.quote.balanceMinor)}</td>
+                  </tr>
+                </tfoot>
+              </table>
+              <p className="mt-3 text-sm text-bark">
+                Labour {preview.estimate.totals.p50Hours} h typical, {preview.estimate.totals.p80Hours} h cautious; priced at the {policy.labourPolicy === "p80" ? "cautious (P80)" : "typical (P50)"} figure.
+              </p>
+            </>
+          ) : null}
+        </div>
+      </aside>
+    </div>
+  );
+}

@@ -1,0 +1,51 @@
+// Quote drafts (the builder's JSON body), acceptance and change requests from the portal.
+import { z } from "zod";
+
+const count = (max = 1_000_000) => z.number({ error: "Enter a number." }).finite().min(0, "Use 0 or more.").max(max, `At most ${max}.`);
+const minor = z.number({ error: "Enter an amount." }).int("Whole minor units only.").min(0, "Use 0 or more.").max(100_000_000, "That amount is too large.");
+const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Use a date like 2027-01-31.");
+
+export const pieceFeaturesSchema = z.object({
+  label: z.string().trim().min(1, "Name the piece.").max(80),
+  newDesign: z.boolean().default(true),
+  proofRounds: count(20).default(1),
+  plainStitches: count().default(0),
+  strandedStitches: count().default(0),
+  floatCatches: count().default(0),
+  shapingRounds: count(2000).default(0),
+  thumbs: count(4).default(0),
+  duplicateStitches: count().default(0),
+  ends: count(2000).default(0),
+  carryCm: count(100_000).default(0),
+  blocked: z.boolean().default(true),
+});
+
+export const quoteDraftSchema = z.object({
+  pieces: z.array(pieceFeaturesSchema).min(1, "Add at least one piece.").max(12),
+  materials: z
+    .array(z.object({ yarnId: z.string().uuid("Choose a yarn."), skeins: z.number().int("Whole skeins.").min(0).max(200) }))
+    .max(16),
+  extras: z.array(z.object({ label: z.string().trim().min(1, "Name the extra.").max(80), amountMinor: minor })).max(10).default([]),
+  designFeeMinor: minor.default(0),
+  shippingMinor: minor.default(0),
+  discountMinor: minor.default(0),
+  requestedDate: isoDate.nullable().optional(),
+  earliestDate: isoDate.nullable().optional(),
+  rushFeeMinor: minor.nullable().optional(),
+  validUntil: isoDate.nullable().optional(),
+  messageToClient: z.string().trim().max(2000).default(""),
+});
+
+export type QuoteDraftInput = z.input<typeof quoteDraftSchema>;
+export type QuoteDraftBody = z.output<typeof quoteDraftSchema>;
+
+export const acceptQuoteSchema = z.object({
+  quoteId: z.string().uuid(),
+  name: z.string().trim().min(2, "Type your full name to accept.").max(120),
+  agree: z.literal("on", { error: "Tick the box to accept the quote and its terms." }),
+});
+
+export const requestQuoteChangesSchema = z.object({
+  quoteId: z.string().uuid(),
+  changes: z.string().trim().min(5, "Tell the studio what you would like changed.").max(2000),
+});
