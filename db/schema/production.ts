@@ -74,6 +74,10 @@ export const timeEntries = pgTable(
     minutes: integer("minutes").notNull().default(0),
     /** a running timer is paused when this is set */
     pausedAt: timestamp("paused_at", { withTimezone: true }),
+    /** start of the current run of a running timer (set on start and resume, null while paused or stopped) */
+    runningSince: timestamp("running_since", { withTimezone: true }),
+    /** seconds banked by earlier runs of a running timer, before it was paused */
+    bankedSeconds: integer("banked_seconds").notNull().default(0),
     note: text("note").notNull().default(""),
     /** e.g. a timer left running overnight: shown for review, not silently counted */
     flag: text("flag"),

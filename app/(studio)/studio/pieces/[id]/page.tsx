@@ -1,0 +1,34 @@
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { PieceLive } from "@/components/production/piece-live";
+import { PageTitle } from "@/components/ui/card";
+import { localDate } from "@/lib/core/production";
+import { PIECE_STAGE_LABELS } from "@/lib/core/workflow/pieces";
+import { memberRole } from "@/lib/server/authz";
+import { requireStudioMember } from "@/lib/server/page-guards";
+import { getPieceDetail } from "@/lib/server/production";
+
+export const metadata = { title: "Piece" };
+export const dynamic = "force-dynamic";
+
+export default async function PiecePage({ params }: { params: Promise<{ id: string }> }) {
+  const { id } = await params;
+  const { actor, membership } = await requireStudioMember(`/studio/pieces/${id}`);
+  if (!/^[0-9a-f-]{36}$/i.test(id)) notFound();
+  const detail = await getPieceDetail(actor, id).catch(() => null);
+  if (!detail) notFound();
+  return (
+    <>
+      <p className="mb-2 text-sm">
+        <Link href="/studio/board">Back to the board</Link>
+      </p>
+      <PageTitle title={detail.piece.name} lead={`Stage: ${PIECE_STAGE_LABELS[detail.piece.stage as keyof typeof PIECE_STAGE_LABELS]}`} />
+      <PieceLive
+        initial={detail}
+        me={actor.userId}
+        isOwner={memberRole(actor, membership.studioId) === "owner"}
+        today={localDate(new Date(), "Europe/London")}
+      />
+    </>
+  );
+}

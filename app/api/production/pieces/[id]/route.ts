@@ -1,0 +1,10 @@
+import { z } from "zod";
+import { getPieceDetail } from "@/lib/server/production";
+import { route } from "@/lib/server/route";
+
+export const dynamic = "force-dynamic";
+
+const params = z.object({ id: z.string().uuid("Not a piece id") });
+
+/** GET /api/production/pieces/:id — estimate vs logged per stage (live) and the entries. */
+export const GET = route({ params }, async ({ actor, params: p }) => getPieceDetail(actor, p.id));

@@ -1,0 +1,79 @@
+import "server-only";
+// Shipping (owner only, through the workflow's `ship` move) and the care card for a commission.
+import { eq, inArray } from "drizzle-orm";
+import { db } from "@/db";
+import { commissions, shipments, studioClients, studios, user, yarnReservations, yarns } from "@/db/schema";
+import { getCareCard, type Wearer } from "@/lib/core/production";
+import { env } from "@/lib/env";
+import { CareCardDocument } from "@/templates/pdf/care-card";
+import { shippedMessage } from "@/templates/email/production";
+import { assertCan, memberRole, type Actor } from "./authz";
+import { notFound } from "./errors";
+import { enqueueMail } from "./outbox";
+import { renderPdf } from "./pdf";
+import { getCommissionFor } from "./queries/commissions";
+import { moveCommission } from "./workflow";
+
+/** Marks a commission shipped with carrier and tracking, and tells the client (outbox), in one transaction. */
+export async function shipCommission(actor: Actor, input: { commissionId: string; carrier: string; tracking: string }) {
+  const [c] = await db.select().from(commissions).where(eq(commissions.id, input.commissionId));
+  if (!c || memberRole(actor, c.studioId) === null) throw notFound("That commission");
+  assertCan(actor, "commission.ship", c.studioId);
+  return db.transaction(async (tx) => {
+    const outcome = await moveCommission(actor, c.id, "ship", { tx, detail: { carrier: input.carrier, tracking: input.tracking } });
+    const [shipment] = await tx
+      .insert(shipments)
+      .values({ commissionId: c.id, carrier: input.carrier, tracking: input.tracking, shippedBy: actor.userId })
+      .returning();
+    const [who] = await tx
+      .select({ email: user.email, name: studioClients.displayName, studioName: studios.name, brandHex: studios.brandHex, contactEmail: studios.contactEmail })
+      .from(studioClients)
+      .innerJoin(user, eq(user.id, studioClients.userId))
+      .innerJoin(studios, eq(studios.id, studioClients.studioId))
+      .where(eq(studioClients.id, c.clientId));
+    if (who) {
+      const base = env.BETTER_AUTH_URL.replace(/\/$/, "");
+      const mail = shippedMessage({
+        studioName: who.studioName,
+        clientName: who.name,
+        title: c.title,
+        carrier: input.carrier,
+        tracking: input.tracking,
+        commissionUrl: `${base}/portal/commissions/${c.id}`,
+        careCardUrl: `${base}/api/commissions/${c.id}/care-card`,
+        accentHex: who.brandHex,
+      });
+      await enqueueMail({ to: who.email, ...mail, replyTo: who.contactEmail, studioId: c.studioId, dedupeKey: `shipped:${shipment.id}` }, tx);
+    }
+    return { outcome, shipment };
+  });
+}
+
+export async function getShipments(actor: Actor, commissionId: string) {
+  const c = await getCommissionFor(actor, commissionId);
+  return db.select().from(shipments).where(eq(shipments.commissionId, c.id));
+}
+
+/** The care card PDF for a commission the actor may see (its studio, or its own client). */
+export async function renderCareCard(actor: Actor, commissionId: string): Promise<{ pdf: Buffer; filename: string }> {
+  const c = await getCommissionFor(actor, commissionId);
+  const [row] = await db.select({ wearer: commissions.wearer }).from(commissions).where(eq(commissions.id, c.id));
+  const reserved = await db.select({ yarnId: yarnReservations.yarnId }).from(yarnReservations).where(eq(yarnReservations.commissionId, c.id));
+  const yarnRows = reserved.length
+    ? await db.select().from(yarns).where(inArray(yarns.id, reserved.map((r) => r.yarnId)))
+    : [];
+  const [studio] = await db.select().from(studios).where(eq(studios.id, c.studioId));
+  // With no yarn reserved, the studio's usual yarns decide (the demo studio knits wool only).
+  const fibres = yarnRows.length
+    ? yarnRows.map((y) => y.fibre)
+    : (await db.select({ fibre: yarns.fibre }).from(yarns).where(eq(yarns.studioId, c.studioId)).limit(20)).map((y) => y.fibre);
+  const card = getCareCard({ fibres, wearer: (row?.wearer ?? "adult") as Wearer });
+  const pdf = await renderPdf(
+    CareCardDocument({
+      studio: { name: studio.name, contactEmail: studio.contactEmail, brandHex: studio.brandHex },
+      piece: { title: c.title, clientName: c.clientName, yarns: [...new Set(yarnRows.map((y) => `${y.name}, ${y.colourName} (${y.fibre})`))] },
+      card,
+    }),
+  );
+  return { pdf, filename: `care-card-${c.number}.pdf` };
+}

@@ -1,0 +1,47 @@
+// The care card that goes with a finished piece: washing and drying for its fibre, re-blocking,
+// and for children's pieces the safety cautions. Content comes from lib/core/production/care.ts.
+import { Document, Page, StyleSheet, Text, View } from "@react-pdf/renderer";
+import type { CareCard } from "@/lib/core/production";
+
+const s = StyleSheet.create({
+  page: { fontFamily: "Atkinson Hyperlegible", fontSize: 11, padding: 36, color: "#2B2622", lineHeight: 1.45 },
+  title: { fontFamily: "Fraunces", fontSize: 20, marginBottom: 2 },
+  muted: { color: "#5A4F45" },
+  heading: { fontWeight: 700, fontSize: 12, marginTop: 14, marginBottom: 4 },
+  line: { flexDirection: "row", marginBottom: 3 },
+  bullet: { width: 12 },
+  text: { flex: 1 },
+  footer: { marginTop: 18, fontSize: 9, color: "#5A4F45" },
+});
+
+export interface CareCardProps {
+  studio: { name: string; contactEmail: string; brandHex: string };
+  piece: { title: string; clientName: string; yarns: string[] };
+  card: CareCard;
+}
+
+export function CareCardDocument({ studio, piece, card }: CareCardProps) {
+  return (
+    <Document title={`Care card: ${piece.title}`} author={studio.name}>
+      <Page size="A5" style={s.page}>
+        <Text style={[s.title, { color: studio.brandHex }]}>Caring for your knitting</Text>
+        <Text style={s.muted}>
+          {piece.title}, knitted for {piece.clientName} by {studio.name}
+        </Text>
+        {piece.yarns.length ? <Text style={s.muted}>Yarn: {piece.yarns.join("; ")}</Text> : null}
+        {card.sections.map((section) => (
+          <View key={section.heading} wrap={false}>
+            <Text style={s.heading}>{section.heading}</Text>
+            {section.lines.map((line, i) => (
+              <View key={i} style={s.line}>
+                <Text style={s.bullet}>•</Text>
+                <Text style={s.text}>{line}</Text>
+              </View>
+            ))}
+          </View>
+        ))}
+        <Text style={s.footer}>Questions or a repair? Write to {studio.contactEmail}. Hand-knitted pieces can usually be mended.</Text>
+      </Page>
+    </Document>
+  );
+}
