@@ -91,6 +91,7 @@ if [ -z "${STRIPE_SECRET_KEY:-}" ]; then
   wait_http "$STRIPE_API_URL/health" 30 || die "the local payments service did not start (see .data/payments.log)"
   PAYMENTS_WHERE="local payments fake at $STRIPE_API_URL (test card 4242 4242 4242 4242 pays, 4000 0000 0000 0002 is declined; state in .data/payments.json)"
 else
+  [ -n "${STRIPE_WEBHOOK_SECRET:-}" ] || die "STRIPE_WEBHOOK_SECRET is not set. With STRIPE_SECRET_KEY set, also set the webhook signing secret of your endpoint ($BETTER_AUTH_URL/api/payments/webhook)."
   PAYMENTS_WHERE="Stripe with STRIPE_SECRET_KEY${STRIPE_API_URL:+ at $STRIPE_API_URL}"
 fi
 
