@@ -1,27 +1,36 @@
 import { notFound } from "next/navigation";
-import { CommissionSummary, Timeline } from "@/components/commission/commission-summary";
+import { CommissionSummary } from "@/components/commission/commission-summary";
+import { PortalJourney } from "@/components/journey/portal-journey";
+import { PortalShipping } from "@/components/production/portal-shipping";
+import { PortalMoneySection } from "@/components/quotes/portal-money-section";
 import { Card, PageTitle } from "@/components/ui/card";
 import { asClient } from "@/lib/server/authz";
 import { requirePageActor } from "@/lib/server/page-guards";
-import { getCommissionFor, getCommissionTimeline } from "@/lib/server/queries/commissions";
+import { getCommissionFor } from "@/lib/server/queries/commissions";
 
-export default async function PortalCommissionPage({ params }: { params: Promise<{ id: string }> }) {
+export default async function PortalCommissionPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ id: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const { id } = await params;
+  const sp = await searchParams;
+  const returned = sp.cancelled ? "cancelled" : sp.paid ? "paid" : undefined;
   const actor = await requirePageActor(`/portal/commissions/${id}`);
   const client = asClient(actor);
   const c = await getCommissionFor(client, id).catch(() => null);
   if (!c) notFound();
-  const events = await getCommissionTimeline(client, id);
   return (
     <>
       <PageTitle title={c.title} lead={`With ${c.studioName}`} />
       <Card>
         <CommissionSummary c={c} />
       </Card>
-      <Card className="mt-6">
-        <h2 className="mb-3 text-xl">Timeline</h2>
-        <Timeline events={events.filter((e) => e.toState !== "quoting")} />
-      </Card>
+      <PortalMoneySection actor={actor} commissionId={c.id} returned={returned} />
+      <PortalJourney actor={actor} commissionId={c.id} requested={Boolean(sp.requested)} />
+      <PortalShipping actor={client} commissionId={c.id} />
     </>
   );
 }

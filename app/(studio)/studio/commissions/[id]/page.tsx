@@ -1,10 +1,14 @@
 import { notFound } from "next/navigation";
-import { CommissionSummary, Timeline } from "@/components/commission/commission-summary";
+import { DesignSection } from "@/components/chart-editor/design-section";
+import { CommissionSummary } from "@/components/commission/commission-summary";
+import { StudioJourney } from "@/components/journey/studio-journey";
+import { ProductionSection } from "@/components/production/production-section";
+import { StudioMoneySection } from "@/components/quotes/studio-money-section";
 import { Card, PageTitle } from "@/components/ui/card";
 import { minorToDecimalString } from "@/lib/core/pricing/format-money";
 import { can } from "@/lib/server/authz";
 import { requireStudioMember } from "@/lib/server/page-guards";
-import { getCommissionFor, getCommissionTimeline } from "@/lib/server/queries/commissions";
+import { getCommissionFor } from "@/lib/server/queries/commissions";
 import { PriceForm } from "./price-form";
 
 export default async function StudioCommissionPage({ params }: { params: Promise<{ id: string }> }) {
@@ -12,7 +16,6 @@ export default async function StudioCommissionPage({ params }: { params: Promise
   const { actor } = await requireStudioMember(`/studio/commissions/${id}`);
   const c = await getCommissionFor(actor, id).catch(() => null);
   if (!c || !can(actor, "studio.view", c.studioId)) notFound();
-  const events = await getCommissionTimeline(actor, id);
   const current = c.priceMinor === null ? "" : minorToDecimalString(c.priceMinor, c.currency);
   return (
     <>
@@ -31,10 +34,10 @@ export default async function StudioCommissionPage({ params }: { params: Promise
           )}
         </Card>
       </div>
-      <Card className="mt-6">
-        <h2 className="mb-3 text-xl">Timeline</h2>
-        <Timeline events={events} />
-      </Card>
+      <DesignSection actor={actor} commissionId={c.id} studioId={c.studioId} />
+      <StudioMoneySection actor={actor} commissionId={c.id} />
+      <StudioJourney actor={actor} commissionId={c.id} />
+      <ProductionSection actor={actor} commissionId={c.id} />
     </>
   );
 }

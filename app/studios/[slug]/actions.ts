@@ -1,0 +1,78 @@
+"use server";
+// The request form's actions. Saving a draft needs no account (the draft is keyed by a random
+// cookie token); sending the request needs one, so a signed-out visitor marks the draft as sent
+// and it becomes the commission once they have confirmed their address (see /welcome).
+import { cookies } from "next/headers";
+import type { ActionState } from "@/lib/action-state";
+import { env } from "@/lib/env";
+import { toErrorState } from "@/lib/server/action";
+import { getActor, requireActor } from "@/lib/server/authz";
+import { getStudioBySlug } from "@/lib/server/clients";
+import { notFound, validationError } from "@/lib/server/errors";
+import { createCommissionFromRequest, draftCookieName, loadDraft, newDraftToken, saveDraft } from "@/lib/server/requests";
+import { requestSchema } from "@/lib/schemas/request";
+
+async function studioAndToken(slug: string, create: boolean) {
+  const studio = await getStudioBySlug(slug);
+  if (!studio) throw notFound("That studio");
+  const jar = await cookies();
+  let token = jar.get(draftCookieName(slug))?.value;
+  if (!token && create) {
+    token = newDraftToken();
+    jar.set(draftCookieName(slug), token, {
+      httpOnly: true,
+      sameSite: "lax",
+      secure: env.BETTER_AUTH_URL.startsWith("https:"),
+      path: "/",
+      maxAge: 60 * 60 * 24 * 30,
+    });
+  }
+  return { studio, token };
+}
+
+/** Makes sure this browser has a draft token for the studio (before the first save or photo). */
+export async function ensureRequestDraft(slug: string): Promise<{ ok: true }> {
+  await studioAndToken(slug, true);
+  return { ok: true };
+}
+
+export async function saveRequestDraft(slug: string, values: unknown): Promise<ActionState<{ savedAt: string }>> {
+  try {
+    const { studio, token } = await studioAndToken(slug, true);
+    const actor = await getActor();
+    const previous = await loadDraft(studio.id, token);
+    const data = { ...(values as Record<string, unknown>), submitted: previous?.data.submitted ?? false };
+    await saveDraft(studio.id, token!, data, actor?.userId ?? null);
+    return { status: "ok", data: { savedAt: new Date().toISOString() } };
+  } catch (err) {
+    return toErrorState(err);
+  }
+}
+
+/** Signed out: the request is complete and kept as "sent"; it is created when the account is confirmed. */
+export async function holdRequestForSignUp(slug: string, values: unknown): Promise<ActionState<{ held: true }>> {
+  try {
+    const parsed = requestSchema.safeParse(values);
+    if (!parsed.success) throw validationError(parsed.error);
+    const { studio, token } = await studioAndToken(slug, true);
+    await saveDraft(studio.id, token!, { ...(values as Record<string, unknown>), submitted: true }, null);
+    return { status: "ok", data: { held: true } };
+  } catch (err) {
+    return toErrorState(err);
+  }
+}
+
+export async function submitRequest(slug: string, values: unknown): Promise<ActionState<{ id: string; number: number }>> {
+  try {
+    const actor = await requireActor();
+    const { studio, token } = await studioAndToken(slug, false);
+    const draft = await loadDraft(studio.id, token);
+    const c = await createCommissionFromRequest(actor, studio, values, {
+      draftId: draft && (!draft.userId || draft.userId === actor.userId) ? draft.id : undefined,
+      draftUploadIds: draft && (!draft.userId || draft.userId === actor.userId) ? draft.uploadIds : [],
+    });
+    return { status: "ok", data: { id: c.id, number: c.number } };
+  } catch (err) {
+    return toErrorState(err);
+  }
+}

@@ -1,0 +1,1 @@
+export { describeDiff, diffChart, diffProofCharts, type ChartDiff, type NamedChart } from "./diff";

@@ -1,0 +1,291 @@
+import "server-only";
+// Proofs: a frozen design version sent to the client, and the client's answer. Each answer locks
+// the commission row and then the proof row (the same order as sending), so two approvals racing
+// end with one, and an answer to a proof that a newer one has replaced is refused.
+import { createHash } from "node:crypto";
+import { and, asc, desc, eq, max, ne } from "drizzle-orm";
+import { db, type Tx } from "@/db";
+import { commissions, designs, designVersions, proofComments, proofs, quoteVersions, studioClients, studios, user, type DesignChartEntry } from "@/db/schema";
+import { measureText, parseChart, type Chart, type FontId } from "@/lib/core/chart";
+import { diffProofCharts, type ChartDiff } from "@/lib/core/proofs";
+import { env } from "@/lib/env";
+import type { RequestChangesInput } from "@/lib/schemas/proofs";
+import { proofAnsweredMessage, proofReadyMessage } from "@/templates/email/journey";
+import { assertCan, memberRole, type Actor } from "./authz";
+import { previewPng } from "./chart-image";
+import { AppError, conflict, notFound } from "./errors";
+import { enqueueMail } from "./outbox";
+import { getCommissionFor } from "./queries/commissions";
+import { moveCommission } from "./workflow";
+
+export function proofHash(number: number, designHash: string, quoteVersionId: string | null): string {
+  return createHash("sha256").update(`darnwell-proof\n${number}\n${designHash}\n${quoteVersionId ?? ""}`).digest("hex");
+}
+
+async function lockCommission(tx: Tx, id: string) {
+  const [c] = await tx.select().from(commissions).where(eq(commissions.id, id)).for("update");
+  if (!c) throw notFound("That commission");
+  return c;
+}
+
+/** The design a proof is sent from: the commission's design (newest if several) and its head version. */
+async function headVersionFor(tx: Tx, commissionId: string) {
+  const [d] = await tx.select().from(designs).where(eq(designs.commissionId, commissionId)).orderBy(desc(designs.updatedAt)).limit(1);
+  if (!d?.headVersionId) return null;
+  const [v] = await tx.select().from(designVersions).where(eq(designVersions.id, d.headVersionId));
+  return v ? { design: d, version: v } : null;
+}
+
+/** Owner (the workflow allows only the owner to send a proof): freezes the design's head version as the next proof. */
+export async function sendProof(actor: Actor, commissionId: string, note: string) {
+  const c = await getCommissionFor(actor, commissionId);
+  assertCan(actor, "commission.work", c.studioId);
+  const out = await db.transaction(async (tx) => {
+    await lockCommission(tx, c.id);
+    const head = await headVersionFor(tx, c.id);
+    if (!head) throw new AppError(422, "no_design", "This commission has no saved design yet; save its charts before sending a proof.");
+    const [q] = await tx
+      .select({ id: quoteVersions.id, number: quoteVersions.number })
+      .from(quoteVersions)
+      .where(and(eq(quoteVersions.commissionId, c.id), ne(quoteVersions.status, "draft")))
+      .orderBy(desc(quoteVersions.number))
+      .limit(1);
+    const [{ last }] = await tx.select({ last: max(proofs.number) }).from(proofs).where(eq(proofs.commissionId, c.id));
+    const number = (last ?? 0) + 1;
+    await moveCommission(actor, c.id, "send_proof", { tx, detail: { proofNumber: number } });
+    await tx.update(proofs).set({ status: "superseded" }).where(and(eq(proofs.commissionId, c.id), eq(proofs.status, "sent")));
+    const [p] = await tx
+      .insert(proofs)
+      .values({
+        commissionId: c.id,
+        number,
+        designVersionId: head.version.id,
+        quoteVersionId: q?.id ?? null,
+        contentHash: proofHash(number, head.version.contentHash, q?.id ?? null),
+        noteToClient: note,
+        sentBy: actor.userId,
+      })
+      .returning();
+    const [who] = await tx
+      .select({ email: user.email, name: studioClients.displayName })
+      .from(commissions)
+      .innerJoin(studioClients, eq(studioClients.id, commissions.clientId))
+      .innerJoin(user, eq(user.id, studioClients.userId))
+      .where(eq(commissions.id, c.id));
+    const [s] = await tx.select().from(studios).where(eq(studios.id, c.studioId));
+    const charts = head.version.charts;
+    const attachments: { filename: string; contentType: string; base64: string }[] = [];
+    for (const [i, entry] of charts.slice(0, 3).entries()) {
+      try {
+        const png = await previewPng(parseChart(entry.chart), entry.label);
+        attachments.push({ filename: `proof-${number}-${i + 1}-${entry.area}.png`, contentType: "image/png", base64: png.toString("base64") });
+      } catch (err) {
+        console.error("proof preview:", (err as Error).message);
+      }
+    }
+    await enqueueMail(
+      {
+        to: who.email,
+        studioId: c.studioId,
+        replyTo: s.contactEmail,
+        dedupeKey: `proof-sent:${p.id}`,
+        attachments,
+        ...proofReadyMessage(s, { clientName: who.name, number, title: c.title, note, url: `${env.BETTER_AUTH_URL}/portal/commissions/${c.id}/proofs/${p.id}` }),
+      },
+      tx,
+    );
+    return p;
+  });
+  return out;
+}
+
+async function proofRowFor(actor: Actor, proofId: string) {
+  const [p] = await db.select().from(proofs).where(eq(proofs.id, proofId));
+  if (!p) throw notFound("That proof");
+  const c = await getCommissionFor(actor, p.commissionId).catch(() => null);
+  if (!c) throw notFound("That proof");
+  return { p, c };
+}
+
+/** Locks and re-reads the proof; refuses a proof that is not the newest or already answered. */
+async function lockOpenProof(tx: Tx, proofId: string, commissionId: string, seenHash: string) {
+  await lockCommission(tx, commissionId);
+  const [cur] = await tx.select().from(proofs).where(eq(proofs.id, proofId)).for("update");
+  if (!cur) throw notFound("That proof");
+  const [{ last }] = await tx.select({ last: max(proofs.number) }).from(proofs).where(eq(proofs.commissionId, commissionId));
+  if ((last ?? 0) > cur.number) throw new AppError(409, "stale_proof", `There is a newer proof (proof ${last}); please look at that one.`);
+  if (cur.status === "approved") throw new AppError(409, "already_approved", "This proof is already approved; there is nothing more to do.");
+  if (cur.status !== "sent") throw new AppError(409, "already_answered", "You have asked for changes to this proof; the studio will send a new one.");
+  if (cur.contentHash !== seenHash) throw new AppError(409, "stale_proof", "This proof has changed since you opened it; please reload the page.");
+  return cur;
+}
+
+function clientIpFrom(h: Headers | null): string | null {
+  const fwd = h?.get("x-forwarded-for")?.split(",")[0]?.trim();
+  return (fwd || h?.get("x-real-ip")?.trim() || null)?.slice(0, 64) ?? null;
+}
+
+export async function approveProof(actor: Actor, proofId: string, seenHash: string, requestHeaders: Headers | null) {
+  const { p, c } = await proofRowFor(actor, proofId);
+  const ip = clientIpFrom(requestHeaders);
+  return db.transaction(async (tx) => {
+    const cur = await lockOpenProof(tx, p.id, c.id, seenHash);
+    await moveCommission(actor, c.id, "approve_proof", { tx, detail: { proofId: cur.id, proofNumber: cur.number, contentHash: cur.contentHash } });
+    const [done] = await tx
+      .update(proofs)
+      .set({ status: "approved", decidedBy: actor.userId, decidedAt: new Date(), decisionIp: ip })
+      .where(and(eq(proofs.id, cur.id), eq(proofs.status, "sent")))
+      .returning();
+    if (!done) throw conflict("This proof has just been answered elsewhere.");
+    const [v] = await tx.select({ designId: designVersions.designId }).from(designVersions).where(eq(designVersions.id, cur.designVersionId));
+    await tx.update(designs).set({ lockedVersionId: cur.designVersionId, updatedAt: new Date() }).where(eq(designs.id, v.designId));
+    const [s] = await tx.select().from(studios).where(eq(studios.id, c.studioId));
+    await enqueueMail(
+      {
+        to: s.contactEmail,
+        studioId: s.id,
+        replyTo: actor.email,
+        dedupeKey: `proof-approved:${cur.id}`,
+        ...proofAnsweredMessage(s, { clientName: c.clientName, proofNumber: cur.number, title: c.title, approved: true, note: "", pinned: 0, url: `${env.BETTER_AUTH_URL}/studio/commissions/${c.id}` }),
+      },
+      tx,
+    );
+    return done;
+  });
+}
+
+export async function requestProofChanges(
+  actor: Actor,
+  proofId: string,
+  input: Pick<RequestChangesInput, "contentHash" | "note" | "comments">,
+  requestHeaders: Headers | null,
+) {
+  const { p, c } = await proofRowFor(actor, proofId);
+  if (memberRole(actor, c.studioId)) throw new AppError(403, "forbidden", "Clients ask for changes on their proof; log a change asked by phone in the messages.");
+  return db.transaction(async (tx) => {
+    const cur = await lockOpenProof(tx, p.id, c.id, input.contentHash);
+    const [v] = await tx.select().from(designVersions).where(eq(designVersions.id, cur.designVersionId));
+    for (const cm of input.comments) {
+      const entry = v.charts[cm.chartIndex];
+      const chart = entry ? parseChart(entry.chart) : null;
+      if (!chart || cm.row > chart.height || cm.stitch > chart.width) {
+        throw new AppError(422, "invalid_input", "A pinned comment points outside the chart; reload and try again.");
+      }
+    }
+    await moveCommission(actor, c.id, "request_changes", { tx, reason: input.note || undefined, detail: { proofId: cur.id, proofNumber: cur.number, pinned: input.comments.length } });
+    await tx
+      .update(proofs)
+      .set({ status: "changes_requested", decidedBy: actor.userId, decidedAt: new Date(), decisionIp: clientIpFrom(requestHeaders), decisionNote: input.note })
+      .where(eq(proofs.id, cur.id));
+    if (input.comments.length) {
+      await tx.insert(proofComments).values(input.comments.map((cm) => ({ proofId: cur.id, authorUserId: actor.userId, chartIndex: cm.chartIndex, row: cm.row, stitch: cm.stitch, body: cm.body })));
+    }
+    if (input.note) await tx.insert(proofComments).values({ proofId: cur.id, authorUserId: actor.userId, body: input.note });
+    const [s] = await tx.select().from(studios).where(eq(studios.id, c.studioId));
+    await enqueueMail(
+      {
+        to: s.contactEmail,
+        studioId: s.id,
+        replyTo: actor.email,
+        dedupeKey: `proof-changes:${cur.id}`,
+        ...proofAnsweredMessage(s, { clientName: c.clientName, proofNumber: cur.number, title: c.title, approved: false, note: input.note, pinned: input.comments.length, url: `${env.BETTER_AUTH_URL}/studio/commissions/${c.id}` }),
+      },
+      tx,
+    );
+    return { id: cur.id };
+  });
+}
+
+export interface LetteringSize {
+  text: string;
+  widthCm: number;
+  heightCm: number;
+  stitches: number;
+  rows: number;
+}
+
+export interface ProofChartView {
+  index: number;
+  area: string;
+  label: string;
+  chart: Chart;
+  lettering: LetteringSize[];
+}
+
+function letteringSizes(entry: DesignChartEntry, chart: Chart): LetteringSize[] {
+  const out: LetteringSize[] = [];
+  for (const raw of entry.lettering ?? []) {
+    const l = raw as { text?: unknown; font?: unknown; box?: { width?: number; height?: number } };
+    if (typeof l.text !== "string") continue;
+    let size = { width: l.box?.width ?? 0, height: l.box?.height ?? 0 };
+    try {
+      size = measureText(l.text, l.font as FontId);
+    } catch {
+      // an unknown font: fall back to the box the maker drew
+    }
+    out.push({
+      text: l.text,
+      stitches: size.width,
+      rows: size.height,
+      widthCm: Math.round((size.width * 100) / chart.gauge.stitchesPer10cm) / 10,
+      heightCm: Math.round((size.height * 100) / chart.gauge.rowsPer10cm) / 10,
+    });
+  }
+  return out;
+}
+
+function chartsOf(entries: DesignChartEntry[]): ProofChartView[] {
+  return entries.map((entry, index) => {
+    const chart = parseChart(entry.chart);
+    return { index, area: entry.area, label: entry.label, chart, lettering: letteringSizes(entry, chart) };
+  });
+}
+
+/** A commission's proofs, newest first, for the person (404 when the commission is not theirs). */
+export async function listProofs(actor: Actor, commissionId: string) {
+  const c = await getCommissionFor(actor, commissionId);
+  return db
+    .select({ id: proofs.id, number: proofs.number, status: proofs.status, sentAt: proofs.sentAt, decidedAt: proofs.decidedAt, contentHash: proofs.contentHash })
+    .from(proofs)
+    .where(eq(proofs.commissionId, c.id))
+    .orderBy(desc(proofs.number));
+}
+
+/** Everything the proof page shows, with the differences from the proof before it. */
+export async function getProofView(actor: Actor, commissionId: string, proofId: string) {
+  const { p, c } = await proofRowFor(actor, proofId);
+  if (c.id !== commissionId) throw notFound("That proof");
+  const [v] = await db.select().from(designVersions).where(eq(designVersions.id, p.designVersionId));
+  const charts = chartsOf(v.charts);
+  const [quote] = p.quoteVersionId
+    ? await db.select({ number: quoteVersions.number, totalMinor: quoteVersions.totalMinor, currency: quoteVersions.currency, status: quoteVersions.status }).from(quoteVersions).where(eq(quoteVersions.id, p.quoteVersionId))
+    : [];
+  const comments = await db
+    .select({ id: proofComments.id, chartIndex: proofComments.chartIndex, row: proofComments.row, stitch: proofComments.stitch, body: proofComments.body, createdAt: proofComments.createdAt, author: user.name })
+    .from(proofComments)
+    .leftJoin(user, eq(user.id, proofComments.authorUserId))
+    .where(eq(proofComments.proofId, p.id))
+    .orderBy(asc(proofComments.createdAt));
+  const all = await db.select({ id: proofs.id, number: proofs.number, status: proofs.status, designVersionId: proofs.designVersionId, sentAt: proofs.sentAt }).from(proofs).where(eq(proofs.commissionId, c.id)).orderBy(asc(proofs.number));
+  const prev = all.filter((x) => x.number < p.number).at(-1);
+  let diff: ChartDiff[] | null = null;
+  if (prev) {
+    const [pv] = await db.select().from(designVersions).where(eq(designVersions.id, prev.designVersionId));
+    diff = diffProofCharts(
+      chartsOf(pv.charts).map((x) => ({ area: x.area, label: x.label, chart: x.chart })),
+      charts.map((x) => ({ area: x.area, label: x.label, chart: x.chart })),
+    );
+  }
+  const latestNumber = all.at(-1)?.number ?? p.number;
+  const [decider] = p.decidedBy ? await db.select({ name: user.name }).from(user).where(eq(user.id, p.decidedBy)) : [];
+  return { proof: p, commission: c, charts, quote: quote ?? null, comments, proofs: all, previousNumber: prev?.number ?? null, diff, isLatest: latestNumber === p.number, decidedByName: decider?.name ?? null };
+}
+
+/** For the studio page: the design the next proof would be sent from (or null). */
+export async function getProofSource(actor: Actor, commissionId: string) {
+  const c = await getCommissionFor(actor, commissionId);
+  assertCan(actor, "studio.view", c.studioId);
+  const head = await db.transaction((tx) => headVersionFor(tx, c.id));
+  if (!head) return null;
+  return { designId: head.design.id, title: head.design.title, versionNumber: head.version.number, lockedVersionId: head.design.lockedVersionId, charts: head.version.charts.length };
+}
