@@ -4,7 +4,7 @@ import reactHooks from "eslint-plugin-react-hooks";
 import tseslint from "typescript-eslint";
 
 export default tseslint.config(
-  { ignores: ["node_modules/**", ".next/**", ".next-test/**", ".data/**", "drizzle/**", "next-env.d.ts", "test-results/**"] },
+  { ignores: ["node_modules/**", ".next/**", ".next-test/**", ".next-*/**", ".data/**", "drizzle/**", "next-env.d.ts", "test-results/**"] },
   ...tseslint.configs.recommended,
   {
     files: ["**/*.{ts,tsx}"],

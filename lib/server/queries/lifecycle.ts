@@ -21,6 +21,10 @@ const OWN_PLACE: ReadonlySet<Move> = new Set<Move>([
   "send_proof",
   "request_changes",
   "approve_proof",
+  // Production has its own controls: setting up pieces, the shipment record and the labour history.
+  "start_production",
+  "ship",
+  "close",
 ]);
 
 export async function getAvailableMoves(actor: Actor, commissionId: string): Promise<AvailableMove[]> {
