@@ -23,25 +23,10 @@ import { Notice } from "@/components/ui/notice";
 import { formatMoney, minorToDecimalString } from "@/lib/core/pricing/format-money";
 import { YARN_WEIGHTS } from "@/lib/core/yarn/yarn-weights";
 import { lotSchema, yarnFormSchema } from "@/lib/schemas/yarns";
+import type { YarnRow } from "@/lib/server/yarns";
 import { api, ApiError } from "./api";
 import { ScrollArea } from "./scroll-area";
 
-export interface YarnRow {
-  id: string;
-  name: string;
-  colourName: string;
-  hex: string;
-  fibre: string;
-  weightCategory: number;
-  weightName: string;
-  metresPerSkein: number;
-  gramsPerSkein: number;
-  priceMinor: number;
-  lots: { id: string; lotCode: string; stockSkeins: number }[];
-  stock: number;
-  reserved: number;
-  short: number;
-}
 
 export interface YarnsData {
   currency: string;

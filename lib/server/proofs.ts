@@ -12,7 +12,7 @@ import { env } from "@/lib/env";
 import type { RequestChangesInput } from "@/lib/schemas/proofs";
 import { proofAnsweredMessage, proofReadyMessage } from "@/templates/email/journey";
 import { assertCan, memberRole, type Actor } from "./authz";
-import { previewPng } from "./chart-image";
+import { renderPreviewPng } from "./chart-png";
 import { AppError, conflict, notFound } from "./errors";
 import { enqueueMail } from "./outbox";
 import { getCommissionFor } from "./queries/commissions";
@@ -77,7 +77,8 @@ export async function sendProof(actor: Actor, commissionId: string, note: string
     const attachments: { filename: string; contentType: string; base64: string }[] = [];
     for (const [i, entry] of charts.slice(0, 3).entries()) {
       try {
-        const png = await previewPng(parseChart(entry.chart), entry.label);
+        // E-mail clients do not show SVG; a PNG of the preview at most 560 px wide, on white.
+        const png = await renderPreviewPng(parseChart(entry.chart), { title: entry.label, maxWidthPx: 560 });
         attachments.push({ filename: `proof-${number}-${i + 1}-${entry.area}.png`, contentType: "image/png", base64: png.toString("base64") });
       } catch (err) {
         console.error("proof preview:", (err as Error).message);
