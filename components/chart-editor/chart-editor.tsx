@@ -52,6 +52,7 @@ import {
   type LetteringLayer,
   type StoredEntry,
 } from "./editor-model";
+import { LivePrice, type LivePricing } from "./live-price";
 import { PlanPanel } from "./plan-panel";
 
 type Tool = "paint" | "fill" | "line" | "rect" | "select" | "eyedropper" | "motif" | "lettering" | "paste" | "pan";
@@ -90,6 +91,8 @@ export interface ChartEditorProps {
   yarns: YarnColour[];
   locked: boolean;
   planDefaults: PlanDefaults;
+  /** the studio's pricing, for the live price (left out when the design has no commission) */
+  livePricing?: LivePricing;
   inTheRound: boolean;
 }
 
@@ -148,6 +151,8 @@ export function ChartEditor(props: ChartEditorProps) {
   const [marks, setMarks] = useState<CellMark[]>([]);
   const [parentId, setParentId] = useState<string | null>(props.headVersionId);
   const [revision, setRevision] = useState(0);
+  /** bumped when another version is opened, so the live price compares from there */
+  const [openedVersion, setOpenedVersion] = useState(0);
   const [save, setSave] = useState<SaveState>(props.locked ? { kind: "locked", message: "The client approved this design, so it is locked." } : { kind: "saved", number: props.headNumber });
   const [resizeW, setResizeW] = useState(String(props.entries[0] ? (props.entries[0].chart as { width: number }).width : 20));
   const [resizeH, setResizeH] = useState(String(props.entries[0] ? (props.entries[0].chart as { height: number }).height : 20));
@@ -173,6 +178,7 @@ export function ChartEditor(props: ChartEditorProps) {
   }, [present.palette.length, colour, background]);
 
   const counts = useMemo(() => getStitchCounts(present), [present]);
+  const priceCharts = useMemo(() => entries.map((e) => ({ label: e.label, chart: e.history.present })), [entries]);
 
   /** Replaces the active chart with an edited one (one undo step). */
   const apply = useCallback(
@@ -312,6 +318,7 @@ export function ChartEditor(props: ChartEditorProps) {
       parentRef.current = versionId;
       setSelection(null);
       setSave({ kind: "saved", number: body.version.number });
+      setOpenedVersion((n) => n + 1);
       void queryClient.invalidateQueries({ queryKey: ["design-versions", props.designId] });
     },
     [props.designId, queryClient],
@@ -848,6 +855,7 @@ export function ChartEditor(props: ChartEditorProps) {
         </section>
 
         <PlanPanel chart={present} defaults={props.planDefaults} inTheRound={props.inTheRound} onMarks={setMarks} />
+        {props.livePricing ? <LivePrice charts={priceCharts} pricing={props.livePricing} baselineKey={String(openedVersion)} /> : null}
       </div>
 
       <aside className="space-y-4">

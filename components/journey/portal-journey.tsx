@@ -55,7 +55,7 @@ export async function PortalJourney({ actor, commissionId, requested = false }: 
         </Card>
         <Card>
           <h2 className="mb-3 text-xl">Photos</h2>
-          <PhotoGrid photos={photos.filter((p) => p.kind !== "message")} label="Reference and progress photos" />
+          <PhotoGrid photos={photos.filter((p) => p.kind === "reference")} label="Reference photos" />
         </Card>
       </div>
       <div className="mt-6 grid gap-6 md:grid-cols-[2fr_1fr]">

@@ -75,6 +75,10 @@ export interface StoreUploadInput {
   kind: Upload["kind"];
   uploadedBy: string | null;
   messageId?: string | null;
+  /** progress photos: the piece and work stage they show, and whether the client may see them */
+  pieceId?: string | null;
+  stage?: string | null;
+  sharedWithClient?: boolean;
   bytes: Buffer;
 }
 
@@ -93,6 +97,9 @@ export async function storeUpload(input: StoreUploadInput): Promise<Upload> {
       studioId: input.studioId,
       commissionId: input.commissionId,
       messageId: input.messageId ?? null,
+      pieceId: input.pieceId ?? null,
+      stage: input.stage ?? null,
+      ...(input.sharedWithClient !== undefined ? { sharedWithClient: input.sharedWithClient } : {}),
       kind: input.kind,
       objectKey,
       thumbKey,
@@ -108,6 +115,11 @@ export async function storeUpload(input: StoreUploadInput): Promise<Upload> {
 
 /** Reads the one file of a multipart body (field "file"), refusing anything over the limit first. */
 export async function readUploadedFile(req: Request): Promise<Buffer> {
+  return (await readUploadedForm(req)).bytes;
+}
+
+/** Like readUploadedFile, also giving the form's other fields. */
+export async function readUploadedForm(req: Request): Promise<{ bytes: Buffer; form: FormData }> {
   const declared = Number(req.headers.get("content-length") ?? "0");
   if (declared > MAX_UPLOAD_BYTES + 64 * 1024) throw refuse("That photo is larger than 10 MB; please send a smaller one.");
   let form: FormData;
@@ -119,7 +131,7 @@ export async function readUploadedFile(req: Request): Promise<Buffer> {
   const file = form.get("file");
   if (!file || typeof file === "string") throw new AppError(400, "bad_upload", "Choose a photo to upload.");
   if (file.size > MAX_UPLOAD_BYTES) throw refuse("That photo is larger than 10 MB; please send a smaller one.");
-  return Buffer.from(await file.arrayBuffer());
+  return { bytes: Buffer.from(await file.arrayBuffer()), form };
 }
 
 /** Attaches uploads that are not yet attached to anything (draft photos) to a commission. */

@@ -1,6 +1,7 @@
 import { notFound } from "next/navigation";
 import { CommissionSummary } from "@/components/commission/commission-summary";
 import { PortalJourney } from "@/components/journey/portal-journey";
+import { PortalProgressPhotos } from "@/components/production/portal-progress-photos";
 import { PortalShipping } from "@/components/production/portal-shipping";
 import { PortalMoneySection } from "@/components/quotes/portal-money-section";
 import { Card, PageTitle } from "@/components/ui/card";
@@ -30,6 +31,7 @@ export default async function PortalCommissionPage({
       </Card>
       <PortalMoneySection actor={actor} commissionId={c.id} returned={returned} />
       <PortalJourney actor={actor} commissionId={c.id} requested={Boolean(sp.requested)} />
+      <PortalProgressPhotos actor={client} commissionId={c.id} />
       <PortalShipping actor={client} commissionId={c.id} />
     </>
   );

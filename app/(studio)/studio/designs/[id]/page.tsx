@@ -7,6 +7,8 @@ import type { StoredEntry } from "@/components/chart-editor/editor-model";
 import { can } from "@/lib/server/authz";
 import { getDesignWithHead, listStudioYarnColours } from "@/lib/server/designs";
 import { requireStudioMember } from "@/lib/server/page-guards";
+import { getCommissionFor } from "@/lib/server/queries/commissions";
+import { policyFrom } from "@/lib/server/quotes";
 import { loadStudioSettings } from "@/lib/server/settings";
 
 export const metadata = { title: "Design" };
@@ -19,6 +21,11 @@ export default async function DesignPage({ params }: { params: Promise<{ id: str
   if (!found || !found.head) notFound();
   const { design, head } = found;
   const [yarns, settings] = await Promise.all([listStudioYarnColours(actor, design.studioId), loadStudioSettings(design.studioId)]);
+  // The live price is shown to studio members only (this page is members-only); prices are the commission's currency.
+  const commission = design.commissionId ? await getCommissionFor(actor, design.commissionId).catch(() => null) : null;
+  const livePricing = commission
+    ? { policy: policyFrom(settings, commission.currency), designFeeMinor: settings.designFeeMinor, floatLimitStitches: settings.floatLimitStitches }
+    : undefined;
   const locked = design.lockedVersionId !== null || !can(actor, "commission.work", design.studioId);
   return (
     <>
@@ -46,6 +53,7 @@ export default async function DesignPage({ params }: { params: Promise<{ id: str
         yarns={yarns}
         locked={locked}
         inTheRound={design.garment !== null}
+        livePricing={livePricing}
         planDefaults={{ carryLimitCm: settings.carryLimitCm, floatLimitStitches: settings.floatLimitStitches, floatLimitCm: settings.floatLimitCm }}
       />
     </>

@@ -1,12 +1,14 @@
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { PieceLive } from "@/components/production/piece-live";
+import { PiecePhotos } from "@/components/production/piece-photos";
 import { PageTitle } from "@/components/ui/card";
 import { localDate } from "@/lib/core/production";
 import { PIECE_STAGE_LABELS } from "@/lib/core/workflow/pieces";
 import { memberRole } from "@/lib/server/authz";
 import { requireStudioMember } from "@/lib/server/page-guards";
 import { getPieceDetail } from "@/lib/server/production";
+import { listPiecePhotos } from "@/lib/server/progress-photos";
 
 export const metadata = { title: "Piece" };
 export const dynamic = "force-dynamic";
@@ -17,6 +19,7 @@ export default async function PiecePage({ params }: { params: Promise<{ id: stri
   if (!/^[0-9a-f-]{36}$/i.test(id)) notFound();
   const detail = await getPieceDetail(actor, id).catch(() => null);
   if (!detail) notFound();
+  const photos = await listPiecePhotos(actor, id);
   return (
     <>
       <p className="mb-2 text-sm">
@@ -29,6 +32,7 @@ export default async function PiecePage({ params }: { params: Promise<{ id: stri
         isOwner={memberRole(actor, membership.studioId) === "owner"}
         today={localDate(new Date(), "Europe/London")}
       />
+      <PiecePhotos pieceId={detail.piece.id} initial={photos} />
     </>
   );
 }

@@ -17,7 +17,15 @@ export const POST = route({ params, query }, async ({ req, actor, params: p, que
   const c = await getCommissionFor(who, p.id);
   if (q.kind === "progress" && !memberRole(who, c.studioId)) throw forbidden("Progress photos come from the studio.");
   const bytes = await readUploadedFile(req);
-  const row = await storeUpload({ studioId: c.studioId, commissionId: c.id, kind: q.kind, uploadedBy: actor.userId, bytes });
+  // Progress photos stay with the studio until someone shares them (the piece page does that).
+  const row = await storeUpload({
+    studioId: c.studioId,
+    commissionId: c.id,
+    kind: q.kind,
+    uploadedBy: actor.userId,
+    bytes,
+    ...(q.kind === "progress" ? { sharedWithClient: false } : {}),
+  });
   return Response.json(
     { upload: { id: row.id, width: row.width, height: row.height, thumbUrl: `/api/uploads/${row.id}?size=thumb`, url: `/api/uploads/${row.id}` } },
     { status: 201 },
