@@ -44,6 +44,8 @@ export function QuoteBuilder(props: {
   initialValidUntil: string;
   initialMessage: string;
   featuresFromDesign: boolean;
+  /** the schedule's earliest promise date for this garment (lib/server/schedule.ts) */
+  scheduleEarliest?: string | null;
 }) {
   const { policy } = props;
   const cur = policy.currency;
@@ -289,7 +291,10 @@ export function QuoteBuilder(props: {
         <fieldset className="grid gap-3 sm:grid-cols-3">
           <legend className="mb-2 text-xl">Dates</legend>
           <Field label="Client needs it by" type="date" value={requestedDate} onChange={(e) => setRequestedDate(e.target.value)} />
-          <Field label="Earliest date we can offer" hint="A rush fee applies when the client needs it sooner." type="date" value={earliestDate} onChange={(e) => setEarliestDate(e.target.value)} />
+          <Field
+            label="Earliest date we can offer"
+            hint={`A rush fee applies when the client needs it sooner.${props.scheduleEarliest ? ` The schedule can promise ${props.scheduleEarliest} after the work already booked (shipping not included).` : ""}`}
+            type="date" value={earliestDate} onChange={(e) => setEarliestDate(e.target.value)} />
           <Field label={`Rush fee (${cur})`} hint="Empty: a quarter of the labour." inputMode="decimal" value={money.rushFee} onChange={(e) => setMoney({ ...money, rushFee: e.target.value })} errors={moneyErrors.rushFee ? [moneyErrors.rushFee] : undefined} />
           <Field label="Quote valid until" hint="Empty: the studio's default." type="date" value={validUntil} onChange={(e) => setValidUntil(e.target.value)} errors={fe.validUntil} />
         </fieldset>

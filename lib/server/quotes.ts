@@ -24,6 +24,7 @@ import { renderPdf } from "./pdf";
 import { getCommissionFor } from "./queries/commissions";
 import { loadStudioSettings } from "./settings";
 import { moveCommission } from "./workflow";
+import { getEarliestPromiseDate, newPiecesForGarment } from "./schedule";
 
 export const todayIso = (d = new Date()) => d.toISOString().slice(0, 10);
 const addDays = (iso: string, days: number) => todayIso(new Date(Date.parse(`${iso}T00:00:00Z`) + days * 86_400_000));
@@ -117,6 +118,8 @@ export async function getQuoteBuilderData(actor: Actor, commissionId: string) {
     .orderBy(asc(yarns.colourName));
   const versions = await db.select().from(quoteVersions).where(eq(quoteVersions.commissionId, c.id)).orderBy(desc(quoteVersions.number));
   const fromDesign = await designFeatures(c.id, settings.floatLimitStitches);
+  // What the studio's schedule can promise for this garment after everything already booked.
+  const promise = await getEarliestPromiseDate(c.studioId, newPiecesForGarment(c.garment)).catch(() => null);
   const latest = versions[0];
   const previous: QuoteDraft | null = latest ? storedInputOf(latest).draft : null;
   const initial: QuoteDraft = previous ?? {
@@ -127,7 +130,7 @@ export async function getQuoteBuilderData(actor: Actor, commissionId: string) {
     shippingMinor: 0,
     discountMinor: 0,
     requestedDate: c.neededBy,
-    earliestDate: null,
+    earliestDate: promise?.date ?? null,
     rushFeeMinor: null,
   };
   return {
@@ -138,6 +141,7 @@ export async function getQuoteBuilderData(actor: Actor, commissionId: string) {
     versions,
     initial,
     featuresFromDesign: fromDesign.pieces.length > 0,
+    scheduleEarliest: promise?.date ?? null,
     sentQuote: versions.find((v) => v.status === "sent" || v.status === "accepted") ?? null,
   };
 }
