@@ -12,6 +12,7 @@ export interface LivePricing {
   policy: QuotePolicy;
   designFeeMinor: number;
   floatLimitStitches: number;
+  carryLimitCm?: number;
 }
 
 export interface LivePriceProps {
@@ -24,7 +25,7 @@ export interface LivePriceProps {
 const DEBOUNCE_MS = 300;
 
 export function LivePrice({ charts, pricing, baselineKey }: LivePriceProps) {
-  const { policy, designFeeMinor, floatLimitStitches } = pricing;
+  const { policy, designFeeMinor, floatLimitStitches, carryLimitCm } = pricing;
   // A stroke stays smooth: the price follows the charts once editing pauses.
   const [settled, setSettled] = useState(charts);
   useEffect(() => {
@@ -32,14 +33,14 @@ export function LivePrice({ charts, pricing, baselineKey }: LivePriceProps) {
     return () => clearTimeout(t);
   }, [charts]);
 
-  const pieces = useMemo(() => piecesFromCharts(settled, floatLimitStitches), [settled, floatLimitStitches]);
+  const pieces = useMemo(() => piecesFromCharts(settled, floatLimitStitches, carryLimitCm), [settled, floatLimitStitches, carryLimitCm]);
   const [baseline, setBaseline] = useState<{ key: string; from: "opened" | "here"; pieces: typeof pieces }>(() => ({
     key: baselineKey,
     from: "opened",
-    pieces: piecesFromCharts(charts, floatLimitStitches),
+    pieces: piecesFromCharts(charts, floatLimitStitches, carryLimitCm),
   }));
   // Another version opened: price changes from there (set during render, React's reset pattern).
-  if (baseline.key !== baselineKey) setBaseline({ key: baselineKey, from: "opened", pieces: piecesFromCharts(charts, floatLimitStitches) });
+  if (baseline.key !== baselineKey) setBaseline({ key: baselineKey, from: "opened", pieces: piecesFromCharts(charts, floatLimitStitches, carryLimitCm) });
 
   const result = useMemo(() => {
     try {

@@ -79,7 +79,7 @@ export function taxNote(q: Quote): string {
 // --- the builder ------------------------------------------------------------------------------
 
 /** Features for each charted piece of the commission's newest design version, if it has one. */
-async function designFeatures(commissionId: string, floatLimit: number): Promise<{ pieces: PieceFeatures[]; designVersionId: string | null }> {
+async function designFeatures(commissionId: string, floatLimit: number, carryLimitCm: number): Promise<{ pieces: PieceFeatures[]; designVersionId: string | null }> {
   const [d] = await db.select().from(designs).where(eq(designs.commissionId, commissionId)).orderBy(desc(designs.updatedAt)).limit(1);
   if (!d) return { pieces: [], designVersionId: null };
   const versionId = d.lockedVersionId ?? d.headVersionId;
@@ -90,7 +90,7 @@ async function designFeatures(commissionId: string, floatLimit: number): Promise
   const pieces: PieceFeatures[] = [];
   for (const entry of v.charts) {
     try {
-      pieces.push({ ...featuresFromChart(parseChart(entry.chart), entry.label, { floatLimitStitches: floatLimit }), newDesign: true, proofRounds: 1, blocked: true });
+      pieces.push({ ...featuresFromChart(parseChart(entry.chart), entry.label, { floatLimitStitches: floatLimit, carryLimitCm }), newDesign: true, proofRounds: 1, blocked: true });
     } catch {
       // A chart that does not parse is left for the maker to type in.
     }
@@ -117,7 +117,7 @@ export async function getQuoteBuilderData(actor: Actor, commissionId: string) {
     .where(eq(yarns.studioId, c.studioId))
     .orderBy(asc(yarns.colourName));
   const versions = await db.select().from(quoteVersions).where(eq(quoteVersions.commissionId, c.id)).orderBy(desc(quoteVersions.number));
-  const fromDesign = await designFeatures(c.id, settings.floatLimitStitches);
+  const fromDesign = await designFeatures(c.id, settings.floatLimitStitches, settings.carryLimitCm);
   // What the studio's schedule can promise for this garment after everything already booked.
   const promise = await getEarliestPromiseDate(c.studioId, newPiecesForGarment(c.garment)).catch(() => null);
   const latest = versions[0];
@@ -187,7 +187,7 @@ export async function saveQuoteDraft(actor: Actor, commissionId: string, body: Q
   const draft = await draftFromBody(c.studioId, body);
   const { quote, estimate } = compose(draft, policy);
   if (body.validUntil && body.validUntil < todayIso()) throw new AppError(422, "invalid_input", "The validity date is in the past.", { validUntil: ["Choose today or a later date."] });
-  const design = await designFeatures(c.id, settings.floatLimitStitches);
+  const design = await designFeatures(c.id, settings.floatLimitStitches, settings.carryLimitCm);
   const input: StoredQuoteInput = { draft, policy, validUntil: body.validUntil ?? null, estimate: { p50Minutes: estimate.totals.p50Minutes, p80Minutes: estimate.totals.p80Minutes } };
   const values = {
     currency: c.currency,

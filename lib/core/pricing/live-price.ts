@@ -9,12 +9,17 @@ import { explainChange, type PriceChangeExplanation } from "./explain-change";
 
 export interface ChartPiece {
   label: string;
-  chart: Pick<Chart, "width" | "height" | "cells" | "palette">;
+  chart: Chart;
 }
 
 /** One piece per charted area: a new design with one proof round, blocked (as the quote builder reads a design). */
-export function piecesFromCharts(charts: ChartPiece[], floatLimitStitches?: number): PieceFeatures[] {
-  return charts.map((c) => ({ ...featuresFromChart(c.chart, c.label, { floatLimitStitches }), newDesign: true, proofRounds: 1, blocked: true }));
+export function piecesFromCharts(charts: ChartPiece[], floatLimitStitches?: number, carryLimitCm?: number): PieceFeatures[] {
+  return charts.map((c) => ({
+    ...featuresFromChart(c.chart, c.label, { floatLimitStitches, carryLimitCm }),
+    newDesign: true,
+    proofRounds: 1,
+    blocked: true,
+  }));
 }
 
 export interface LivePrice {

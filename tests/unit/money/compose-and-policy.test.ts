@@ -80,14 +80,17 @@ describe("composeQuote", () => {
 });
 
 describe("featuresFromChart", () => {
-  test("two-colour rows are stranded, one-colour rows plain, a third colour is duplicate stitch", () => {
+  test("the planner's pair is knitted (plain or stranded per row); the third colour is darned along its route", () => {
     const palette = [
       { key: "A", name: "a", hex: "#000000" },
       { key: "B", name: "b", hex: "#FFFFFF" },
       { key: "C", name: "c", hex: "#FF0000" },
     ];
     const c = createChart(10, 3, { stitchesPer10cm: 30, rowsPer10cm: 30 }, palette);
-    // row 0 plain A; row 1 A/B alternating; row 2 mostly A, three B, two C (the least used colour is embroidered)
+    // Worked by hand: row 1 (bottom) all A; row 2 A/B alternating; row 3 B C C B B A A A A A.
+    // A 20, B 8, C 2 stitches: the cheapest pair is A+B, so C (two touching stitches) is darned:
+    // one strand, 2 ends, no carry. Every stitch is knitted first (C over B): row 1 plain (10),
+    // rows 2–3 stranded (20). Row 3 after underlay is B×5 A×5 in the round: no float over 5, no catch.
     for (let x = 0; x < 10; x++) c.cells[10 + x] = x % 2;
     c.cells[20] = 1;
     c.cells[23] = 1;
@@ -95,7 +98,7 @@ describe("featuresFromChart", () => {
     c.cells[21] = 2;
     c.cells[22] = 2;
     const f = featuresFromChart(c, "band");
-    expect(f).toMatchObject({ label: "band", plainStitches: 10, strandedStitches: 18, duplicateStitches: 2, ends: 2 });
+    expect(f).toMatchObject({ label: "band", plainStitches: 10, strandedStitches: 20, duplicateStitches: 2, ends: 2, carryCm: 0, floatCatches: 0 });
   });
 
   test("long floats are counted for catching", () => {
@@ -104,7 +107,9 @@ describe("featuresFromChart", () => {
       { key: "B", name: "b", hex: "#FFFFFF" },
     ];
     const c = createChart(20, 1, { stitchesPer10cm: 30, rowsPer10cm: 30 }, palette);
-    c.cells[19] = 1; // 19 stitches of A in a row carrying B: catches after 5, 10, 15
+    // 19 stitches of A carry B behind them (in the round the row wraps to the single B):
+    // ceil(19 / 5) − 1 = 3 catches (the limit is 5 stitches; 2.5 cm at 30 sts/10 cm would allow 7).
+    c.cells[19] = 1;
     expect(featuresFromChart(c, "x", { floatLimitStitches: 5 }).floatCatches).toBe(3);
   });
 });

@@ -24,7 +24,7 @@ export default async function DesignPage({ params }: { params: Promise<{ id: str
   // The live price is shown to studio members only (this page is members-only); prices are the commission's currency.
   const commission = design.commissionId ? await getCommissionFor(actor, design.commissionId).catch(() => null) : null;
   const livePricing = commission
-    ? { policy: policyFrom(settings, commission.currency), designFeeMinor: settings.designFeeMinor, floatLimitStitches: settings.floatLimitStitches }
+    ? { policy: policyFrom(settings, commission.currency), designFeeMinor: settings.designFeeMinor, floatLimitStitches: settings.floatLimitStitches, carryLimitCm: settings.carryLimitCm }
     : undefined;
   const locked = design.lockedVersionId !== null || !can(actor, "commission.work", design.studioId);
   return (
