@@ -87,3 +87,30 @@ export async function signInAs(page: Page, email: string, password = "darnwell-d
 
 /** How long an expect.poll waits for the page to catch up (not a timing assertion). */
 export const POLL = { timeout: 15_000, interval: 100 };
+
+/** Creates a one-chart design on a commission through the API, as the signed-in studio member. */
+export async function createDesign(
+  page: Page,
+  commissionTitle: string,
+  title: string,
+  chart: { width: number; height: number; palette: { key: string; name: string; hex: string }[]; rows: string[] },
+): Promise<string> {
+  const list = (await (await page.request.get("/api/commissions")).json()).commissions as { id: string; title: string }[];
+  const commissionId = list.find((c) => c.title === commissionTitle)?.id;
+  expect(commissionId, `commission "${commissionTitle}"`).toBeTruthy();
+  const res = await page.request.post("/api/designs", {
+    data: {
+      commissionId,
+      title,
+      charts: [
+        {
+          area: "back-of-hand",
+          label: "Back of hand",
+          chart: { version: 1, gauge: { stitchesPer10cm: 32, rowsPer10cm: 36 }, ...chart },
+        },
+      ],
+    },
+  });
+  expect(res.status()).toBe(201);
+  return (await res.json()).design.id as string;
+}

@@ -1,6 +1,6 @@
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
-import { BASE, expectAccessible, launch, POLL, signInAs, withPage } from "./browser";
+import { BASE, createDesign, expectAccessible, launch, POLL, signInAs, withPage } from "./browser";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -64,34 +64,17 @@ describe("the chart editor", () => {
       await signInAs(page, "maren@hollin.test");
       await page.waitForURL(`${BASE}/studio`);
       // A design of our own on a demo commission no other test looks at for designs.
-      const cid = await commissionId(page, "First mittens for Aoife");
       const W = 20;
       const H = 16;
-      const res = await page.request.post("/api/designs", {
-        data: {
-          commissionId: cid,
-          title: `E2E editor ${Date.now()}`,
-          charts: [
-            {
-              area: "back-of-hand",
-              label: "Back of hand",
-              chart: {
-                version: 1,
-                width: W,
-                height: H,
-                gauge: { stitchesPer10cm: 32, rowsPer10cm: 36 },
-                palette: [
-                  { key: "A", name: "Gull white", hex: "#F2EEE4" },
-                  { key: "B", name: "Lichen green", hex: "#6F8A5B" },
-                ],
-                rows: Array.from({ length: H }, () => "A".repeat(W)),
-              },
-            },
-          ],
-        },
+      const designId = await createDesign(page, "First mittens for Aoife", `E2E editor ${Date.now()}`, {
+        width: W,
+        height: H,
+        palette: [
+          { key: "A", name: "Gull white", hex: "#F2EEE4" },
+          { key: "B", name: "Lichen green", hex: "#6F8A5B" },
+        ],
+        rows: Array.from({ length: H }, () => "A".repeat(W)),
       });
-      expect(res.status()).toBe(201);
-      const designId = (await res.json()).design.id as string;
       await page.goto(`/studio/designs/${designId}`);
       await expect.poll(() => page.getByTestId("plan-panel").count(), POLL).toBe(1);
       await expectAccessible(page);

@@ -1,6 +1,6 @@
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
-import { BASE, expectAccessible, launch, POLL, signInAs, withPage } from "./browser";
+import { BASE, createDesign, expectAccessible, launch, POLL, signInAs, withPage } from "./browser";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -15,37 +15,18 @@ describe("the live price in the chart editor", () => {
     withPage(browser, "live-price", async (page) => {
       await signInAs(page, "maren@hollin.test");
       await page.waitForURL(`${BASE}/studio`);
-      const list = (await (await page.request.get("/api/commissions")).json()).commissions as { id: string; title: string }[];
-      const cid = list.find((c) => c.title === "First mittens for Aoife")?.id;
-      expect(cid).toBeTruthy();
       const W = 12;
       const H = 6;
-      const res = await page.request.post("/api/designs", {
-        data: {
-          commissionId: cid,
-          title: `E2E live price ${Date.now()}`,
-          charts: [
-            {
-              area: "back-of-hand",
-              label: "Back of hand",
-              chart: {
-                version: 1,
-                width: W,
-                height: H,
-                gauge: { stitchesPer10cm: 32, rowsPer10cm: 36 },
-                palette: [
-                  { key: "A", name: "Gull white", hex: "#F2EEE4" },
-                  { key: "B", name: "Lichen green", hex: "#6F8A5B" },
-                  { key: "C", name: "Rowanberry", hex: "#9E2B25" },
-                ],
-                rows: Array.from({ length: H }, () => "AB".repeat(W / 2)),
-              },
-            },
-          ],
-        },
+      const designId = await createDesign(page, "First mittens for Aoife", `E2E live price ${Date.now()}`, {
+        width: W,
+        height: H,
+        palette: [
+          { key: "A", name: "Gull white", hex: "#F2EEE4" },
+          { key: "B", name: "Lichen green", hex: "#6F8A5B" },
+          { key: "C", name: "Rowanberry", hex: "#9E2B25" },
+        ],
+        rows: Array.from({ length: H }, () => "AB".repeat(W / 2)),
       });
-      expect(res.status()).toBe(201);
-      const designId = (await res.json()).design.id as string;
       await page.goto(`/studio/designs/${designId}`);
       const change = page.getByTestId("live-price-change");
       await expect.poll(() => change.textContent(), POLL).toBe("No change since the version you opened.");
