@@ -37,7 +37,7 @@ import { assertCan, can, type Actor } from "./authz";
 import { AppError, conflict, notFound } from "./errors";
 import { enqueueMail } from "./outbox";
 import { renderPdf } from "./pdf";
-import { getCommissionFor } from "./queries/commissions";
+import { getCommissionFor, getCommissionMailParties } from "./queries/commissions";
 import { loadStudioSettings } from "./settings";
 import { moveCommission, SYSTEM } from "./workflow";
 
@@ -310,13 +310,7 @@ export async function renderDocumentPdf(doc: Invoice): Promise<Buffer> {
 
 async function enqueueDocumentMail(tx: Tx, doc: Invoice) {
   const k = doc.content as unknown as DocumentContent;
-  const [row] = await tx
-    .select({ email: user.email, studioName: studios.name, brandHex: studios.brandHex })
-    .from(commissions)
-    .innerJoin(studioClients, eq(studioClients.id, commissions.clientId))
-    .innerJoin(user, eq(user.id, studioClients.userId))
-    .innerJoin(studios, eq(studios.id, commissions.studioId))
-    .where(eq(commissions.id, doc.commissionId));
+  const row = await getCommissionMailParties(tx, doc.commissionId);
   const pdf = await renderDocumentPdf(doc);
   const mail = documentMessage({
     kind: doc.kind,
@@ -330,7 +324,7 @@ async function enqueueDocumentMail(tx: Tx, doc: Invoice) {
     accentHex: row.brandHex,
   });
   await enqueueMail(
-    { to: row.email, ...mail, studioId: doc.studioId, dedupeKey: `document-${doc.id}`, attachments: [{ filename: `${k.number}.pdf`, contentType: "application/pdf", base64: pdf.toString("base64") }] },
+    { to: row.clientEmail, ...mail, studioId: doc.studioId, dedupeKey: `document-${doc.id}`, attachments: [{ filename: `${k.number}.pdf`, contentType: "application/pdf", base64: pdf.toString("base64") }] },
     tx,
   );
 }

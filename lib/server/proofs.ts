@@ -5,7 +5,7 @@ import "server-only";
 import { createHash } from "node:crypto";
 import { and, asc, desc, eq, max, ne } from "drizzle-orm";
 import { db, type Tx } from "@/db";
-import { commissions, designs, designVersions, proofComments, proofs, quoteVersions, studioClients, studios, user, type DesignChartEntry } from "@/db/schema";
+import { commissions, designs, designVersions, proofComments, proofs, quoteVersions, studios, user, type DesignChartEntry } from "@/db/schema";
 import { measureText, parseChart, type Chart, type FontId } from "@/lib/core/chart";
 import { diffProofCharts, type ChartDiff } from "@/lib/core/proofs";
 import { env } from "@/lib/env";
@@ -15,7 +15,7 @@ import { assertCan, memberRole, type Actor } from "./authz";
 import { renderPreviewPng } from "./chart-png";
 import { AppError, conflict, notFound } from "./errors";
 import { enqueueMail } from "./outbox";
-import { getCommissionFor } from "./queries/commissions";
+import { getCommissionFor, getCommissionMailParties } from "./queries/commissions";
 import { moveCommission } from "./workflow";
 
 export function proofHash(number: number, designHash: string, quoteVersionId: string | null): string {
@@ -66,12 +66,7 @@ export async function sendProof(actor: Actor, commissionId: string, note: string
         sentBy: actor.userId,
       })
       .returning();
-    const [who] = await tx
-      .select({ email: user.email, name: studioClients.displayName })
-      .from(commissions)
-      .innerJoin(studioClients, eq(studioClients.id, commissions.clientId))
-      .innerJoin(user, eq(user.id, studioClients.userId))
-      .where(eq(commissions.id, c.id));
+    const who = await getCommissionMailParties(tx, c.id);
     const [s] = await tx.select().from(studios).where(eq(studios.id, c.studioId));
     const charts = head.version.charts;
     const attachments: { filename: string; contentType: string; base64: string }[] = [];
@@ -86,12 +81,12 @@ export async function sendProof(actor: Actor, commissionId: string, note: string
     }
     await enqueueMail(
       {
-        to: who.email,
+        to: who.clientEmail,
         studioId: c.studioId,
         replyTo: s.contactEmail,
         dedupeKey: `proof-sent:${p.id}`,
         attachments,
-        ...proofReadyMessage(s, { clientName: who.name, number, title: c.title, note, url: `${env.BETTER_AUTH_URL}/portal/commissions/${c.id}/proofs/${p.id}` }),
+        ...proofReadyMessage(s, { clientName: who.clientName, number, title: c.title, note, url: `${env.BETTER_AUTH_URL}/portal/commissions/${c.id}/proofs/${p.id}` }),
       },
       tx,
     );

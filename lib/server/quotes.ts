@@ -4,7 +4,7 @@ import "server-only";
 import { and, asc, desc, eq, inArray, ne } from "drizzle-orm";
 import { createElement } from "react";
 import { db, type Tx } from "@/db";
-import { commissions, designVersions, designs, quoteVersions, studioClients, studios, user, yarnLots, yarnReservations, yarns, type QuoteVersion } from "@/db/schema";
+import { commissions, designVersions, designs, quoteVersions, studioClients, studios, yarnLots, yarnReservations, yarns, type QuoteVersion } from "@/db/schema";
 import { parseChart } from "@/lib/core/chart/format";
 import { featuresFromChart } from "@/lib/core/labour/chart-features";
 import type { PieceFeatures } from "@/lib/core/labour/piece-features";
@@ -21,7 +21,7 @@ import { assertCan, can, type Actor } from "./authz";
 import { AppError, conflict, notFound } from "./errors";
 import { enqueueMail } from "./outbox";
 import { renderPdf } from "./pdf";
-import { getCommissionFor } from "./queries/commissions";
+import { getCommissionFor, getCommissionMailParties } from "./queries/commissions";
 import { loadStudioSettings } from "./settings";
 import { moveCommission } from "./workflow";
 import { getEarliestPromiseDate, newPiecesForGarment } from "./schedule";
@@ -302,13 +302,7 @@ export async function sendQuote(actor: Actor, quoteId: string): Promise<QuoteVer
 
 async function enqueueQuoteMail(tx: Tx, v: QuoteVersion) {
   const q = quoteOf(v);
-  const [row] = await tx
-    .select({ title: commissions.title, clientName: studioClients.displayName, email: user.email, studioName: studios.name, brandHex: studios.brandHex, number: commissions.number })
-    .from(commissions)
-    .innerJoin(studioClients, eq(studioClients.id, commissions.clientId))
-    .innerJoin(user, eq(user.id, studioClients.userId))
-    .innerJoin(studios, eq(studios.id, commissions.studioId))
-    .where(eq(commissions.id, v.commissionId));
+  const row = await getCommissionMailParties(tx, v.commissionId);
   const pdf = await renderQuotePdf(v);
   const mail = quoteSentMessage({
     clientName: row.clientName,
@@ -323,7 +317,7 @@ async function enqueueQuoteMail(tx: Tx, v: QuoteVersion) {
   });
   await enqueueMail(
     {
-      to: row.email,
+      to: row.clientEmail,
       ...mail,
       studioId: v.studioId,
       dedupeKey: `quote-sent-${v.id}`,

@@ -2,7 +2,7 @@ import "server-only";
 // Shipping (owner only, through the workflow's `ship` move) and the care card for a commission.
 import { eq, inArray } from "drizzle-orm";
 import { db } from "@/db";
-import { commissions, shipments, studioClients, studios, user, yarnReservations, yarns } from "@/db/schema";
+import { commissions, shipments, studios, yarnReservations, yarns } from "@/db/schema";
 import { getCareCard, type Wearer } from "@/lib/core/production";
 import { env } from "@/lib/env";
 import { CareCardDocument } from "@/templates/pdf/care-card";
@@ -11,7 +11,7 @@ import { assertCan, memberRole, type Actor } from "./authz";
 import { notFound } from "./errors";
 import { enqueueMail } from "./outbox";
 import { renderPdf } from "./pdf";
-import { getCommissionFor } from "./queries/commissions";
+import { getCommissionFor, getCommissionMailParties } from "./queries/commissions";
 import { moveCommission } from "./workflow";
 
 /** Marks a commission shipped with carrier and tracking, and tells the client (outbox), in one transaction. */
@@ -25,26 +25,19 @@ export async function shipCommission(actor: Actor, input: { commissionId: string
       .insert(shipments)
       .values({ commissionId: c.id, carrier: input.carrier, tracking: input.tracking, shippedBy: actor.userId })
       .returning();
-    const [who] = await tx
-      .select({ email: user.email, name: studioClients.displayName, studioName: studios.name, brandHex: studios.brandHex, contactEmail: studios.contactEmail })
-      .from(studioClients)
-      .innerJoin(user, eq(user.id, studioClients.userId))
-      .innerJoin(studios, eq(studios.id, studioClients.studioId))
-      .where(eq(studioClients.id, c.clientId));
-    if (who) {
-      const base = env.BETTER_AUTH_URL.replace(/\/$/, "");
-      const mail = shippedMessage({
-        studioName: who.studioName,
-        clientName: who.name,
-        title: c.title,
-        carrier: input.carrier,
-        tracking: input.tracking,
-        commissionUrl: `${base}/portal/commissions/${c.id}`,
-        careCardUrl: `${base}/api/commissions/${c.id}/care-card`,
-        accentHex: who.brandHex,
-      });
-      await enqueueMail({ to: who.email, ...mail, replyTo: who.contactEmail, studioId: c.studioId, dedupeKey: `shipped:${shipment.id}` }, tx);
-    }
+    const who = await getCommissionMailParties(tx, c.id);
+    const base = env.BETTER_AUTH_URL.replace(/\/$/, "");
+    const mail = shippedMessage({
+      studioName: who.studioName,
+      clientName: who.clientName,
+      title: c.title,
+      carrier: input.carrier,
+      tracking: input.tracking,
+      commissionUrl: `${base}/portal/commissions/${c.id}`,
+      careCardUrl: `${base}/api/commissions/${c.id}/care-card`,
+      accentHex: who.brandHex,
+    });
+    await enqueueMail({ to: who.clientEmail, ...mail, replyTo: who.contactEmail, studioId: c.studioId, dedupeKey: `shipped:${shipment.id}` }, tx);
     return { outcome, shipment };
   });
 }

@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, desc, eq, inArray, or, sql, type SQL } from "drizzle-orm";
-import { db } from "@/db";
-import { commissionEvents, commissions, studioClients, studios } from "@/db/schema";
+import { db, type Tx } from "@/db";
+import { commissionEvents, commissions, studioClients, studios, user } from "@/db/schema";
 import { assertCan, type Actor } from "../authz";
 import { notFound } from "../errors";
 
@@ -87,4 +87,28 @@ export async function setCommissionPrice(actor: Actor, id: string, priceMinor: n
     });
     return updated;
   });
+}
+
+/**
+ * Who a commission's mail goes to and from: the client's address and name, the studio's name,
+ * colour and contact address. No permission check: for server code that has already checked.
+ */
+export async function getCommissionMailParties(tx: Tx | typeof db, commissionId: string) {
+  const [row] = await tx
+    .select({
+      title: commissions.title,
+      number: commissions.number,
+      clientEmail: user.email,
+      clientName: studioClients.displayName,
+      studioName: studios.name,
+      brandHex: studios.brandHex,
+      contactEmail: studios.contactEmail,
+    })
+    .from(commissions)
+    .innerJoin(studioClients, eq(studioClients.id, commissions.clientId))
+    .innerJoin(user, eq(user.id, studioClients.userId))
+    .innerJoin(studios, eq(studios.id, commissions.studioId))
+    .where(eq(commissions.id, commissionId));
+  if (!row) throw notFound("That commission");
+  return row;
 }
