@@ -1,5 +1,6 @@
 // Studio labour rates with the defaults a new studio starts from. Hand-knitting speed varies
 // widely between makers, so none of these is a standard: each is a setting to calibrate.
+import { defaultDarningRates } from "../colourwork/darning-rates";
 
 export interface LabourRates {
   /** design: charting and placing a new personalised design, once per new design */
@@ -44,10 +45,11 @@ export const defaultRates: Readonly<LabourRates> = Object.freeze({
   strandedStitchesPerMinute: 15,
   minutesPerShapingRound: 2,
   minutesPerThumb: 20,
-  secondsPerFloatCatch: 3,
-  secondsPerDuplicateStitch: 30,
-  minutesPerEnd: 3,
-  secondsPerCarryCm: 5,
+  // The darning and float-catch defaults are the colourwork planner's, so a plan and a quote agree.
+  secondsPerFloatCatch: defaultDarningRates.secondsPerFloatCatch,
+  secondsPerDuplicateStitch: defaultDarningRates.secondsPerDuplicateStitch,
+  minutesPerEnd: defaultDarningRates.minutesPerEnd,
+  secondsPerCarryCm: defaultDarningRates.secondsPerCarryCm,
   blockingMinutesPerPiece: 15,
   dryingHoursPerPiece: 24,
   finishingMinutesPerPiece: 20,
