@@ -11,8 +11,10 @@ import { roundTo, toLength } from "./units";
 
 // (memory) common practice in hat patterns, not read from a source; each can be given instead.
 export const HAT_PROPORTIONS = {
-  /** brim edge to crown, unfolded, as a share of the head circumference (≈ 21 cm on a 56 cm head) */
-  heightPerHead: 0.37,
+  /** brim edge to crown, unfolded, as a share of the head circumference (≈ 22 cm on a 56 cm head).
+   * Cross-check: a published three-gauge hat pattern (knitbot.com/words) gives finished heights of
+   * 0.34–0.41 × the head size each fits, 0.39–0.40 for its adult 22 in size. */
+  heightPerHead: 0.39,
   brimPerHead: 0.09,
   /** sector counts tried in order: 8 is the usual; near counts keep the crown about as deep, else 8 after a few decreases */
   sectorChoices: [8, 7, 9, 10, 6],
