@@ -6,6 +6,7 @@ import { useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { DesignYarnPanel, type DesignYarnPanelData } from "./design-yarn-panel";
 import type { PieceFeatures } from "@/lib/core/labour/piece-features";
 import { composeQuote, type QuoteDraft, type QuotePolicy } from "@/lib/core/pricing/compose-quote";
 import { diffQuotes } from "@/lib/core/pricing/diff-quotes";
@@ -44,6 +45,8 @@ export function QuoteBuilder(props: {
   initialValidUntil: string;
   initialMessage: string;
   featuresFromDesign: boolean;
+  /** yarn per studio yarn from the design the quote prices (lib/server/design-yarn.ts) */
+  yarnEstimate?: DesignYarnPanelData | null;
   /** the schedule's earliest promise date for this garment (lib/server/schedule.ts) */
   scheduleEarliest?: string | null;
 }) {
@@ -217,6 +220,7 @@ export function QuoteBuilder(props: {
 
         <fieldset className="flex flex-col gap-3">
           <legend className="mb-2 text-xl">Yarn</legend>
+          {props.yarnEstimate ? <DesignYarnPanel data={props.yarnEstimate} onUse={(ms) => setMaterials(ms)} /> : null}
           {materials.map((mat, i) => (
             <div key={i} className="flex flex-wrap items-end gap-3">
               <div className="flex flex-col gap-1">

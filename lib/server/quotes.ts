@@ -4,7 +4,7 @@ import "server-only";
 import { and, asc, desc, eq, inArray, ne } from "drizzle-orm";
 import { createElement } from "react";
 import { db, type Tx } from "@/db";
-import { commissions, designVersions, designs, quoteVersions, studioClients, studios, yarnLots, yarnReservations, yarns, type QuoteVersion } from "@/db/schema";
+import { commissions, quoteVersions, studioClients, studios, yarnLots, yarnReservations, yarns, type QuoteVersion } from "@/db/schema";
 import { parseChart } from "@/lib/core/chart/format";
 import { featuresFromChart } from "@/lib/core/labour/chart-features";
 import type { PieceFeatures } from "@/lib/core/labour/piece-features";
@@ -25,6 +25,7 @@ import { getCommissionFor, getCommissionMailParties } from "./queries/commission
 import { loadStudioSettings } from "./settings";
 import { moveCommission } from "./workflow";
 import { getEarliestPromiseDate, newPiecesForGarment } from "./schedule";
+import { getCommissionYarnEstimate, getPricedDesignVersion } from "./design-yarn";
 
 export const todayIso = (d = new Date()) => d.toISOString().slice(0, 10);
 const addDays = (iso: string, days: number) => todayIso(new Date(Date.parse(`${iso}T00:00:00Z`) + days * 86_400_000));
@@ -80,13 +81,9 @@ export function taxNote(q: Quote): string {
 
 /** Features for each charted piece of the commission's newest design version, if it has one. */
 async function designFeatures(commissionId: string, floatLimit: number, carryLimitCm: number): Promise<{ pieces: PieceFeatures[]; designVersionId: string | null }> {
-  const [d] = await db.select().from(designs).where(eq(designs.commissionId, commissionId)).orderBy(desc(designs.updatedAt)).limit(1);
-  if (!d) return { pieces: [], designVersionId: null };
-  const versionId = d.lockedVersionId ?? d.headVersionId;
-  const [v] = versionId
-    ? await db.select().from(designVersions).where(eq(designVersions.id, versionId))
-    : await db.select().from(designVersions).where(eq(designVersions.designId, d.id)).orderBy(desc(designVersions.number)).limit(1);
-  if (!v) return { pieces: [], designVersionId: null };
+  const priced = await getPricedDesignVersion(commissionId);
+  if (!priced) return { pieces: [], designVersionId: null };
+  const v = priced.version;
   const pieces: PieceFeatures[] = [];
   for (const entry of v.charts) {
     try {
@@ -118,13 +115,22 @@ export async function getQuoteBuilderData(actor: Actor, commissionId: string) {
     .orderBy(asc(yarns.colourName));
   const versions = await db.select().from(quoteVersions).where(eq(quoteVersions.commissionId, c.id)).orderBy(desc(quoteVersions.number));
   const fromDesign = await designFeatures(c.id, settings.floatLimitStitches, settings.carryLimitCm);
+  const yarnEstimate = await getCommissionYarnEstimate(actor, c);
+  const known = new Set(yarnRows.map((y) => y.id));
+  const suggested = (yarnEstimate?.lines ?? []).filter((l) => l.yarnId && known.has(l.yarnId) && l.skeins);
   // What the studio's schedule can promise for this garment after everything already booked.
   const promise = await getEarliestPromiseDate(c.studioId, newPiecesForGarment(c.garment)).catch(() => null);
   const latest = versions[0];
   const previous: QuoteDraft | null = latest ? storedInputOf(latest).draft : null;
   const initial: QuoteDraft = previous ?? {
     pieces: fromDesign.pieces.length ? fromDesign.pieces : (DEFAULT_PIECES[c.garment] ?? DEFAULT_PIECES.hat),
-    materials: yarnRows.slice(0, 2).map((y) => ({ yarnId: y.id, label: `${y.name}, ${y.colourName} (skeins)`, skeins: 1, unitPriceMinor: y.priceMinor })),
+    // Skeins from the design's yarn estimate where its colours are studio yarns; else two to choose from.
+    materials: suggested.length
+      ? suggested.map((l) => {
+          const y = yarnRows.find((r) => r.id === l.yarnId)!;
+          return { yarnId: y.id, label: `${y.name}, ${y.colourName} (skeins)`, skeins: l.skeins!.skeins, unitPriceMinor: y.priceMinor };
+        })
+      : yarnRows.slice(0, 2).map((y) => ({ yarnId: y.id, label: `${y.name}, ${y.colourName} (skeins)`, skeins: 1, unitPriceMinor: y.priceMinor })),
     extras: [],
     designFeeMinor: settings.designFeeMinor,
     shippingMinor: 0,
@@ -141,6 +147,7 @@ export async function getQuoteBuilderData(actor: Actor, commissionId: string) {
     versions,
     initial,
     featuresFromDesign: fromDesign.pieces.length > 0,
+    yarnEstimate,
     scheduleEarliest: promise?.date ?? null,
     sentQuote: versions.find((v) => v.status === "sent" || v.status === "accepted") ?? null,
   };

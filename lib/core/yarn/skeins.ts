@@ -26,6 +26,7 @@ export interface SkeinNeed {
 
 // Binary fractions: 200.00000001 skeins' worth is still 200 skeins' worth of yarn.
 const EPS = 1e-9;
+const skeinWord = (n: number) => `${n} skein${n === 1 ? "" : "s"}`;
 
 /** Skeins and grams for `cm` of yarn (both rounded up), and whether one dye lot in stock covers it. */
 export function getSkeinNeed(cm: number, yarn: YarnRecord): SkeinNeed {
@@ -43,10 +44,10 @@ export function getSkeinNeed(cm: number, yarn: YarnRecord): SkeinNeed {
     if (skeins > total) {
       shortBy = skeins - total;
       secondDyeLot = true;
-      note = `needs ${skeins} skeins of ${yarn.name}; ${total} in stock: order ${shortBy} more, from the same dye lot if it can still be had, or plan for a second dye lot (alternate the lots every few rounds so the change does not show)`;
+      note = `needs ${skeinWord(skeins)} of ${yarn.name}; ${total} in stock: order ${shortBy} more, from the same dye lot if it can still be had, or plan for a second dye lot (alternate the lots every few rounds so the change does not show)`;
     } else if (skeins > largest.skeins) {
       secondDyeLot = true;
-      note = `needs ${skeins} skeins of ${yarn.name}; the largest dye lot in stock${yarn.lots ? ` (${largest.lot})` : ""} has ${largest.skeins}: a second dye lot is needed (alternate the lots every few rounds so the change does not show)`;
+      note = `needs ${skeinWord(skeins)} of ${yarn.name}; the largest dye lot in stock${yarn.lots ? ` (${largest.lot})` : ""} has ${largest.skeins}: a second dye lot is needed (alternate the lots every few rounds so the change does not show)`;
     }
   }
   return { yarn: yarn.name, skeins, grams, note, secondDyeLot, shortBy };
