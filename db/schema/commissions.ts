@@ -56,6 +56,8 @@ export const commissions = pgTable(
     /** the agreed price; set by the owner only (quotes replace this with versions) */
     priceMinor: integer("price_minor"),
     brief: jsonb("brief").$type<CommissionBrief>().notNull().default({}),
+    /** the studio's sizing form (lib/schemas/sizing.ts): measurements, ease, measured gauge, repeat */
+    sizing: jsonb("sizing").$type<Record<string, unknown>>(),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },

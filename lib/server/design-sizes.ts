@@ -11,8 +11,10 @@ export interface SizeOffer {
   note: string;
 }
 
+import { DEFAULT_SIZING_GAUGE } from "@/lib/schemas/sizing";
+
 /** Default stranded gauge for fingering-weight mittens and hats (CYC category 1 range, firm end). */
-export const DEFAULT_GAUGE = { stitchesPer10cm: 32, rowsPer10cm: 36 };
+export const DEFAULT_GAUGE = DEFAULT_SIZING_GAUGE;
 
 /** The sizing core's answer for a commission's brief at a gauge, or why it has none. */
 export function sizeFromBrief(
@@ -41,6 +43,19 @@ export function areaSlug(area: string): string {
   return area.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "");
 }
 
+/** Chart sizes a sizing result offers a new design (areas a chart can hold). */
+export function offersFrom(result: SizingResult): SizeOffer[] {
+  return result.charts
+    .filter((c) => c.width <= 400 && c.height <= 400)
+    .map((c) => ({
+      area: areaSlug(c.area),
+      label: c.area.charAt(0).toUpperCase() + c.area.slice(1),
+      width: c.width,
+      height: c.height,
+      note: c.note,
+    }));
+}
+
 export function getSizeOffers(
   garment: GarmentKind,
   brief: CommissionBrief,
@@ -50,17 +65,5 @@ export function getSizeOffers(
   if (!result) {
     return { offers: [], size, reason: `${reason}${reason?.startsWith("The brief") ? ", so" : ";"} choose the chart size by hand.` };
   }
-  return {
-    size: result.size,
-    reason: null,
-    offers: result.charts
-      .filter((c) => c.width <= 400 && c.height <= 400)
-      .map((c) => ({
-        area: areaSlug(c.area),
-        label: c.area.charAt(0).toUpperCase() + c.area.slice(1),
-        width: c.width,
-        height: c.height,
-        note: c.note,
-      })),
-  };
+  return { size: result.size, reason: null, offers: offersFrom(result) };
 }

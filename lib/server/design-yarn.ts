@@ -12,6 +12,7 @@ import { assertCan, type Actor } from "./authz";
 import { optionsFromSettings, planChart, type PlanOptionsInput } from "./colour-plan";
 import { areaSlug, sizeFromBrief } from "./design-sizes";
 import { loadStudioSettings } from "./settings";
+import { sizedCommission } from "./sizing";
 
 /** Commission states that no longer hold yarn (as the yarn records count them). */
 const NOT_HOLDING = ["shipped", "delivered", "closed", "declined", "cancelled"] as const;
@@ -73,17 +74,28 @@ async function studioYarnRecords(studioId: string, commissionId: string): Promis
   });
 }
 
-function plainParts(garment: GarmentKind, brief: CommissionBrief, entries: DesignChartEntry[], gauge: Chart["gauge"]): { plain: PlainYarnEstimate | null; note: string } {
-  const { result, reason } = sizeFromBrief(garment, brief, gauge);
-  if (!result) return { plain: null, note: `${reason}: only the charts are counted, not the garment's plain parts.` };
+function plainParts(
+  garment: GarmentKind,
+  brief: CommissionBrief,
+  sizing: unknown,
+  entries: DesignChartEntry[],
+  chartGauge: Chart["gauge"],
+): { plain: PlainYarnEstimate | null; note: string } {
+  // The studio's saved sizing first (its measured gauge); else the brief at the chart's gauge.
+  const saved = sizedCommission({ garment, sizing });
+  const fromBrief = saved ? null : sizeFromBrief(garment, brief, chartGauge);
+  const result = saved ?? fromBrief?.result ?? null;
+  if (!result) return { plain: null, note: `${fromBrief?.reason ?? "Nothing to size from"}: only the charts are counted, not the garment's plain parts.` };
+  const gauge = result.gauge;
   const slugs = entries.map((e) => e.area);
   const charted = result.charts.map((c) => c.area).filter((area) => slugs.some((s) => s === areaSlug(area) || s.startsWith(`${areaSlug(area)}-`)));
   try {
     const plain = estimatePlainYarn(result, { chartedAreas: charted });
-    const size = result.size ? `size ${result.size}` : "the brief's measurements";
+    const from = saved ? "the saved sizing" : result.size ? `size ${result.size}` : "the brief's measurements";
+    const at = saved ? "its gauge" : "the chart's gauge";
     return {
       plain,
-      note: `Plain parts sized from ${size} at the chart's gauge (${gauge.stitchesPer10cm} sts per 10 cm)${charted.length ? `, less the charted ${charted.join(", ")}` : ""}, in the main colour.`,
+      note: `Plain parts sized from ${from} at ${at} (${Math.round(gauge.stitchesPer10cm * 10) / 10} sts per 10 cm)${charted.length ? `, less the charted ${charted.join(", ")}` : ""}, in the main colour.`,
     };
   } catch (e) {
     return { plain: null, note: `The plain parts could not be sized (${(e as Error).message}): only the charts are counted.` };
@@ -119,7 +131,8 @@ export async function getCommissionYarnEstimate(
     used.push(entry);
   }
   if (!charts.length) return null;
-  const { plain, note } = plainParts(c.garment, c.brief ?? {}, used, charts[0].chart.gauge);
+  const [row] = await db.select({ sizing: commissions.sizing }).from(commissions).where(eq(commissions.id, c.id));
+  const { plain, note } = plainParts(c.garment, c.brief ?? {}, row?.sizing ?? null, used, charts[0].chart.gauge);
   const records = await studioYarnRecords(c.studioId, c.id);
   const estimate = estimateDesignYarn({ charts, yarns: records, plain });
   return { ...estimate, designTitle: priced.design.title, designVersion: priced.version.number, plainNote: note };

@@ -62,7 +62,7 @@ const REBLOCK: string[] = [
   "Leave it flat until fully dry, a day or two; turn it over halfway through.",
 ];
 
-const CHILD_SAFETY: string[] = [
+export const CHILD_SAFETY: string[] = [
   "No cords, drawstrings or ties at the neck or hood: do not add any (EN 14682 forbids them on children's clothing up to 7 years; ASTM F1816 on sizes 2T–12).",
   "Nothing that can come off and be swallowed: check pompoms, buttons, beads and embroidered details before each wear, and stop using the piece if anything loosens (small parts are a choking hazard for children under 3).",
   "Do not leave a baby or small child asleep or unattended with loose knitted items such as mittens on cords or scarves.",

@@ -1,5 +1,5 @@
 // Garment sizing: measurements, ease, gauge and motif repeat → stitch and row counts, chart sizes, recipes.
-export { sizeGarment, sizeGarmentInputSchema, type SizeGarmentInput } from "./size-garment";
+export { GARMENT_FIELDS, sizeGarment, sizeGarmentInputSchema, type SizeGarmentInput } from "./size-garment";
 export type { ChartArea, GarmentKind, Piece, SizingResult } from "./sizing-result";
 export { SizingError } from "./sizing-error";
 export { getCastOn, getRows } from "./cast-on";

@@ -56,7 +56,8 @@ export const sizeGarmentInputSchema = z.strictObject({
 
 export type SizeGarmentInput = z.input<typeof sizeGarmentInputSchema>;
 
-const BODY: Record<GarmentKind, { required: MeasurementName[]; optional: MeasurementName[]; options: MeasurementName[] }> = {
+/** Per garment: the body measurements it needs, those it can use, and the garment lengths it takes as options. */
+export const GARMENT_FIELDS: Record<GarmentKind, { required: MeasurementName[]; optional: MeasurementName[]; options: MeasurementName[] }> = {
   mitten: { required: ["handCircumference", "handLength"], optional: ["thumbLength"], options: ["cuffLength"] },
   hat: { required: ["headCircumference"], optional: [], options: ["hatHeight", "brimLength"] },
   pullover: {
@@ -81,7 +82,7 @@ function checkFields(record: Record<string, unknown>, allowed: string[], prefix:
 export function sizeGarment(rawInput: unknown): SizingResult {
   const input = parseWithMessages(sizeGarmentInputSchema, rawInput, "size input");
   const garment: GarmentKind = input.garment === "mittens" ? "mitten" : input.garment;
-  const spec = BODY[garment];
+  const spec = GARMENT_FIELDS[garment];
   const warnings: string[] = [];
   const sources: string[] = [];
 

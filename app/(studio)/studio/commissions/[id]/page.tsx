@@ -1,5 +1,6 @@
 import { notFound } from "next/navigation";
 import { DesignSection } from "@/components/chart-editor/design-section";
+import { SizingSection } from "@/components/sizing/sizing-section";
 import { CommissionSummary } from "@/components/commission/commission-summary";
 import { StudioJourney } from "@/components/journey/studio-journey";
 import { ProductionSection } from "@/components/production/production-section";
@@ -34,6 +35,7 @@ export default async function StudioCommissionPage({ params }: { params: Promise
           )}
         </Card>
       </div>
+      <SizingSection actor={actor} commissionId={c.id} />
       <DesignSection actor={actor} commissionId={c.id} studioId={c.studioId} />
       <StudioMoneySection actor={actor} commissionId={c.id} />
       <StudioJourney actor={actor} commissionId={c.id} />

@@ -1,0 +1,59 @@
+import "server-only";
+// A commission's sizing: the studio's measurements, ease, measured gauge and repeat, kept on the
+// commission, so the chart sizes of a new design and the yarn estimate use the studio's own numbers.
+import { eq } from "drizzle-orm";
+import { db } from "@/db";
+import { commissions, type CommissionBrief, type GarmentKind } from "@/db/schema";
+import { getSizeKeys, type SizeGarmentInput, type SizingResult } from "@/lib/core/sizing";
+import { coreGarment, defaultSizingForm, sizeForm, sizingFormSchema, toSizeInput, type SizingFormValues } from "@/lib/schemas/sizing";
+import { assertCan, type Actor } from "./authz";
+import { AppError, validationError } from "./errors";
+import { getCommissionFor } from "./queries/commissions";
+
+/** The saved form, or null when none is saved or it no longer reads. */
+export function savedSizingForm(raw: unknown): SizingFormValues | null {
+  if (!raw) return null;
+  const parsed = sizingFormSchema.safeParse(raw);
+  return parsed.success ? parsed.data : null;
+}
+
+/** The core input of a commission's saved sizing, or null when there is none that sizes. */
+export function sizingInputOf(c: { garment: GarmentKind; sizing: unknown }): SizeGarmentInput | null {
+  const values = savedSizingForm(c.sizing);
+  if (!values) return null;
+  return toSizeInput(c.garment, values).input;
+}
+
+/** The sizing result of a commission's saved sizing, or null (nothing saved, or it no longer sizes). */
+export function sizedCommission(c: { garment: GarmentKind; sizing: unknown }): SizingResult | null {
+  const values = savedSizingForm(c.sizing);
+  if (!values) return null;
+  return sizeForm(c.garment, values).result;
+}
+
+async function loadSizing(commissionId: string) {
+  const [row] = await db.select({ sizing: commissions.sizing }).from(commissions).where(eq(commissions.id, commissionId));
+  return row?.sizing ?? null;
+}
+
+/** Studio members: the saved form, or a first one from the brief. Clients never see it. */
+export async function getCommissionSizing(actor: Actor, commissionId: string) {
+  const c = await getCommissionFor(actor, commissionId);
+  assertCan(actor, "studio.view", c.studioId);
+  const raw = await loadSizing(c.id);
+  const saved = savedSizingForm(raw);
+  const values = saved ?? defaultSizingForm(c.garment, (c.brief ?? {}) as CommissionBrief, getSizeKeys(coreGarment(c.garment)));
+  return { commission: c, values, saved: saved !== null };
+}
+
+/** Owner or assistant: saves the form once it sizes a garment; otherwise 422 with the field's message. */
+export async function saveCommissionSizing(actor: Actor, commissionId: string, raw: unknown) {
+  const c = await getCommissionFor(actor, commissionId);
+  assertCan(actor, "commission.work", c.studioId);
+  const parsed = sizingFormSchema.safeParse(raw);
+  if (!parsed.success) throw validationError(parsed.error);
+  const sized = sizeForm(c.garment, parsed.data);
+  if (!sized.result) throw new AppError(422, "invalid_sizing", "Some fields need attention; nothing was saved.", sized.fieldErrors);
+  await db.update(commissions).set({ sizing: parsed.data, updatedAt: new Date() }).where(eq(commissions.id, c.id));
+  return { sizing: parsed.data, result: sized.result };
+}
