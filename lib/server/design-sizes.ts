@@ -2,6 +2,7 @@ import "server-only";
 // Chart sizes a commission's garment needs, from the sizing core, when the brief says enough.
 import type { CommissionBrief, GarmentKind } from "@/db/schema";
 import { getSizeKeys, sizeGarment, type SizingResult } from "@/lib/core/sizing";
+import { DEFAULT_SIZING_GAUGE } from "@/lib/schemas/sizing";
 
 export interface SizeOffer {
   area: string;
@@ -10,8 +11,6 @@ export interface SizeOffer {
   height: number;
   note: string;
 }
-
-import { DEFAULT_SIZING_GAUGE } from "@/lib/schemas/sizing";
 
 /** Default stranded gauge for fingering-weight mittens and hats (CYC category 1 range, firm end). */
 export const DEFAULT_GAUGE = DEFAULT_SIZING_GAUGE;
