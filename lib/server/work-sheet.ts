@@ -3,7 +3,10 @@ import "server-only";
 // and darning route maps, planned with the studio's limits and rates.
 import { parseChart, serializeChart } from "@/lib/core/chart";
 import { getStitchCounts } from "@/lib/core/chart/counts";
-import { WorkSheetDocument, type WorkSheetChart } from "@/templates/pdf/work-sheet";
+import { and, eq } from "drizzle-orm";
+import { db } from "@/db";
+import { commissions } from "@/db/schema";
+import { WorkSheetDocument, type WorkSheetChart, type WorkSheetRecipe } from "@/templates/pdf/work-sheet";
 import type { Actor } from "./authz";
 import { renderChartPng, svgToPng } from "./chart-png";
 import { optionsFromSettings, planChart, type PlanOptionsInput } from "./colour-plan";
@@ -12,8 +15,27 @@ import { getDesignWithHead } from "./designs";
 import { notFound } from "./errors";
 import { renderPdf } from "./pdf";
 import { loadStudioSettings } from "./settings";
+import { sizedCommission } from "./sizing";
 
 const dataUrl = (png: Buffer) => `data:image/png;base64,${png.toString("base64")}`;
+
+/** The recipe of the design's commission's saved sizing, or null. */
+async function recipeFor(commissionId: string | null, studioId: string): Promise<WorkSheetRecipe | null> {
+  if (!commissionId) return null;
+  const [c] = await db
+    .select({ garment: commissions.garment, sizing: commissions.sizing })
+    .from(commissions)
+    .where(and(eq(commissions.id, commissionId), eq(commissions.studioId, studioId)));
+  const result = c ? sizedCommission(c) : null;
+  if (!result) return null;
+  const r1 = (v: number) => Math.round(v * 10) / 10;
+  return {
+    summary: `cast on ${result.castOn} sts${result.size ? `, size ${result.size}` : ""}, ${r1(result.gauge.stitchesPer10cm)} sts and ${r1(result.gauge.rowsPer10cm)} rnds per 10 cm`,
+    metric: result.recipe.metric,
+    imperial: result.recipe.imperial,
+    warnings: result.warnings,
+  };
+}
 
 export async function buildWorkSheet(actor: Actor, designId: string): Promise<{ pdf: Buffer; filename: string }> {
   const { design, head } = await getDesignWithHead(actor, designId);
@@ -85,9 +107,11 @@ export async function buildWorkSheet(actor: Actor, designId: string): Promise<{ 
       },
     });
   }
+  const recipe = await recipeFor(design.commissionId, design.studioId);
   const pdf = await renderPdf(
     WorkSheetDocument({
       studioName,
+      recipe,
       title: design.title,
       commission: design.commissionNumber ? `commission ${design.commissionNumber}: ${design.commissionTitle}` : "no commission",
       version: head.number,

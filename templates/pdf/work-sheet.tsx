@@ -1,5 +1,6 @@
 // The work sheet a maker prints: per chart, the chart with symbols and its colour key, the knitted
-// pair, float catches per row, and for every darned colour a numbered route map with ends and yarn.
+// pair, float catches per row, and for every darned colour a numbered route map with ends and yarn;
+// first, when the commission has saved sizing, its recipe in metric and imperial.
 import { Document, Image, Page, StyleSheet, Text, View } from "@react-pdf/renderer";
 import type { ReactNode } from "react";
 
@@ -43,8 +44,18 @@ export interface WorkSheetChart {
   totals: { stitches: number; ends: number; endsBound: number; carryCm: number; yarnCm: number; minutes: number; savedEnds: number; savedMinutes: number };
 }
 
+export interface WorkSheetRecipe {
+  /** e.g. "Cast on 160 sts; size woman; 32 sts and 36 rnds per 10 cm" */
+  summary: string;
+  metric: string[];
+  imperial: string[];
+  warnings: string[];
+}
+
 export interface WorkSheetProps {
   studioName: string;
+  /** the commission's saved sizing, when there is one: printed first */
+  recipe?: WorkSheetRecipe | null;
   title: string;
   commission: string;
   version: number;
@@ -74,6 +85,33 @@ function Cell({ w, children, bold }: { w: number; children: ReactNode; bold?: bo
 export function WorkSheetDocument(p: WorkSheetProps) {
   return (
     <Document title={`Work sheet: ${p.title}`} author={p.studioName} language="en-GB">
+      {p.recipe ? (
+        <Page size="A4" style={styles.page} wrap>
+          <View fixed style={{ flexDirection: "row", justifyContent: "space-between", marginBottom: 6 }}>
+            <Text style={styles.small}>
+              {p.studioName} · work sheet · {p.commission}
+            </Text>
+            <Text style={styles.small} render={({ pageNumber, totalPages }) => `page ${pageNumber} of ${totalPages}`} />
+          </View>
+          <Text style={styles.h1}>{p.title}: recipe</Text>
+          <Text style={styles.small}>
+            Version {p.version} · printed {p.printedOn} · {p.recipe.summary}
+          </Text>
+          {p.recipe.warnings.map((w, i) => (
+            <Text key={`w${i}`} style={styles.block}>
+              {`Note: ${w}`}
+            </Text>
+          ))}
+          <Text style={styles.h2}>Metric</Text>
+          {p.recipe.metric.map((l, i) => (
+            <Text key={`m${i}`} style={{ marginBottom: 2 }}>{`${i + 1}. ${l}`}</Text>
+          ))}
+          <Text style={styles.h2}>Imperial</Text>
+          {p.recipe.imperial.map((l, i) => (
+            <Text key={`i${i}`} style={{ marginBottom: 2 }}>{`${i + 1}. ${l}`}</Text>
+          ))}
+        </Page>
+      ) : null}
       {p.charts.map((c, ci) => (
         <Page key={ci} size="A4" style={styles.page} wrap>
           <View fixed style={{ flexDirection: "row", justifyContent: "space-between", marginBottom: 6 }}>

@@ -1,18 +1,22 @@
 // A commission's sizing through its route: saved only when it sizes, field errors otherwise with
 // nothing lost, studio people only; the saved gauge then sizes the yarn estimate's plain parts.
+import { execFileSync } from "node:child_process";
+import { mkdirSync, writeFileSync } from "node:fs";
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, test } from "vitest";
 import { GET, PUT } from "@/app/api/commissions/[id]/sizing/route";
 import { POST as createDesignRoute } from "@/app/api/designs/route";
+import { GET as workSheet } from "@/app/api/designs/[id]/work-sheet/route";
 import { db } from "@/db";
 import { commissions } from "@/db/schema";
 import { buildMittenPair } from "@/db/seed-parts/designs";
 import { getCommissionYarnEstimate } from "@/lib/server/design-yarn";
 import { getCommissionFor } from "@/lib/server/queries/commissions";
-import { defaultSizingForm } from "@/lib/schemas/sizing";
+import { defaultSizingForm, sizeForm } from "@/lib/schemas/sizing";
 import { makeWorld, requestWith, signIn, type Jar, type World } from "./helpers";
 
 let w: World;
+let designId: string;
 const jars: Record<string, Jar> = {};
 const ctx = (id: string) => ({ params: Promise.resolve({ id }) });
 const put = (jar: Jar | null, id: string, body: unknown) =>
@@ -77,8 +81,25 @@ describe("PUT and GET /api/commissions/:id/sizing", () => {
       { params: Promise.resolve({}) },
     );
     expect(res.status).toBe(201);
+    designId = (await res.json()).design.id;
     const actor = await w.actor(w.owner.id);
     const est = (await getCommissionYarnEstimate(actor, await getCommissionFor(actor, w.commissionA)))!;
     expect(est.plainNote).toMatch(/from the saved sizing at its gauge \(30 sts per 10 cm\), less the charted back of hand/);
+  });
+
+  test("the work sheet PDF opens with the saved sizing's recipe, metric and imperial", async () => {
+    const res = await workSheet(requestWith(jars.assistant, `/api/designs/${designId}/work-sheet`), ctx(designId));
+    expect(res.status).toBe(200);
+    mkdirSync("test-results/pdf", { recursive: true });
+    writeFileSync("test-results/pdf/work-sheet-recipe.pdf", Buffer.from(await res.arrayBuffer()));
+    const text = execFileSync("pdftotext", ["-layout", "test-results/pdf/work-sheet-recipe.pdf", "-"]).toString();
+    const saved = (await (await get(jars.owner, w.commissionA)).json()).sizing;
+    const result = sizeForm("mittens", saved).result!;
+    expect(text).toMatch(/Sized\s+mittens: recipe/);
+    expect(text).toContain(`cast on ${result.castOn} sts, 30 sts and 34 rnds per 10 cm`);
+    expect(text).toMatch(/Metric[\s\S]*1\. Gauge: [\s\S]*Imperial[\s\S]*1\. Gauge: /);
+    expect(text).toContain(`Cast on ${result.castOn} sts`);
+    // The chart pages follow.
+    expect(text).toMatch(/Sized\s+mittens: Back of hand \(left\)/);
   });
 });
