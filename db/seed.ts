@@ -10,6 +10,8 @@ import { seedJourney } from "./seed-parts/journey";
 import { seedPayments } from "./seed-parts/payments";
 import { seedProduction } from "./seed-parts/production";
 import { seedQuotes } from "./seed-parts/quotes";
+import { getSizeKeys } from "../lib/core/sizing";
+import { defaultSizingForm, type SizingFormValues } from "../lib/schemas/sizing";
 import {
   account,
   commissionEvents,
@@ -55,6 +57,8 @@ interface DemoCommission {
   budgetMinor: number | null;
   priceMinor: number | null;
   brief: CommissionBrief;
+  /** the studio's saved sizing form (lib/schemas/sizing.ts), where the maker has worked it out */
+  sizing?: SizingFormValues;
   path: CommissionState[];
 }
 
@@ -70,6 +74,8 @@ const COMMISSIONS: DemoCommission[] = [
     budgetMinor: 14000,
     priceMinor: null,
     brief: { sizeLabel: "Woman M", lettering: "PO", colourWishes: "Gull white and Loch blue, a touch of Gorse", motifWishes: ["snowflake"] },
+    // Maren's swatch in the stranded pattern: 32 sts and 36 rnds over 10 cm, a woman's standard size.
+    sizing: { ...defaultSizingForm("mittens", { sizeLabel: "Woman M" }, getSizeKeys("mitten")), stitches: "32", rows: "36" },
     path: ["enquiry", "quoting", "quote_sent"],
   },
   {
@@ -215,6 +221,7 @@ export async function seedDemo(): Promise<{ created: boolean }> {
           budgetMinor: c.budgetMinor,
           priceMinor: c.priceMinor,
           brief: c.brief,
+          sizing: c.sizing ?? null,
         })
         .returning();
       commissionIds[c.key] = row.id;
