@@ -29,6 +29,10 @@ const schema = z.object({
   STRIPE_API_URL: url.optional(),
   /** The outbox worker runs inside each app instance unless turned off (tests drive it by hand). */
   OUTBOX_WORKER: z.enum(["on", "off"]).default("on"),
+  /** Reference photos signed-out visitors may add to one studio's request drafts per hour. */
+  DRAFT_PHOTO_HOURLY_LIMIT: z.coerce.number().int().positive().default(60),
+  /** Request drafts not touched for this many days are removed, with their photos. */
+  DRAFT_MAX_AGE_DAYS: z.coerce.number().int().positive().default(30),
   /** Set by the scripts when the database is the local demo one; demo accounts exist only then. */
   DARNWELL_DEMO: z.enum(["0", "1"]).default("0"),
 });

@@ -1,7 +1,7 @@
 import "server-only";
 // S3-compatible object storage through the AWS SDK: the local fake by default (scripts start it),
 // real storage when S3_ENDPOINT and its keys are set. Downloads use short-lived signed URLs.
-import { CreateBucketCommand, GetObjectCommand, HeadBucketCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
+import { CreateBucketCommand, DeleteObjectsCommand, GetObjectCommand, HeadBucketCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
 import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
 import { env } from "@/lib/env";
 
@@ -46,4 +46,13 @@ export async function getObject(key: string): Promise<Buffer> {
 export async function signedDownloadUrl(key: string, seconds = 300): Promise<string> {
   await ensureBucket();
   return getSignedUrl(s3(), new GetObjectCommand({ Bucket: env.S3_BUCKET, Key: key }), { expiresIn: seconds });
+}
+
+/** Removes objects (missing ones are not an error), up to 1000 keys a call as S3 allows. */
+export async function deleteObjects(keys: string[]): Promise<void> {
+  await ensureBucket();
+  for (let i = 0; i < keys.length; i += 1000) {
+    const batch = keys.slice(i, i + 1000);
+    await s3().send(new DeleteObjectsCommand({ Bucket: env.S3_BUCKET, Delete: { Objects: batch.map((Key) => ({ Key })), Quiet: true } }));
+  }
 }

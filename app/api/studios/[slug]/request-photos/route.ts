@@ -7,6 +7,7 @@ import { getStudioBySlug } from "@/lib/server/clients";
 import { AppError, notFound } from "@/lib/server/errors";
 import { addDraftPhoto, draftCookieName, loadDraft } from "@/lib/server/requests";
 import { errorResponse } from "@/lib/server/route";
+import { assertDraftPhotoAllowance } from "@/lib/server/request-upkeep";
 import { readUploadedFile, storeUpload } from "@/lib/server/uploads";
 import { MAX_REFERENCE_PHOTOS } from "@/lib/schemas/request";
 
@@ -24,8 +25,10 @@ export async function POST(req: Request, ctx: { params: Promise<{ slug: string }
     if ((draft?.data.uploadIds?.length ?? 0) >= MAX_REFERENCE_PHOTOS) {
       throw new AppError(422, "too_many_photos", `Add at most ${MAX_REFERENCE_PHOTOS} photos.`);
     }
-    const bytes = await readUploadedFile(req);
     const actor = await getActor(req.headers);
+    // Signed-out visitors share an hourly allowance per studio, so a script cannot fill the storage.
+    if (!actor) await assertDraftPhotoAllowance(studio.id);
+    const bytes = await readUploadedFile(req);
     const row = await storeUpload({ studioId: studio.id, commissionId: null, kind: "reference", uploadedBy: actor?.userId ?? null, bytes });
     await addDraftPhoto(studio.id, token, row.id);
     return Response.json({ upload: { id: row.id, width: row.width, height: row.height, thumbUrl: `/api/uploads/${row.id}?size=thumb` } }, { status: 201 });
