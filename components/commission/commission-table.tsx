@@ -15,6 +15,8 @@ export interface CommissionRow {
   budgetMinor: number | null;
   clientName: string;
   studioName: string;
+  /** messages from the other side not yet read by the viewer */
+  unread?: number;
 }
 
 export function CommissionTable({
@@ -51,6 +53,16 @@ export function CommissionTable({
                 <Link href={hrefFor(r.id)} className="font-semibold">
                   {r.title}
                 </Link>
+                {r.unread ? (
+                  <Link
+                    href={`${hrefFor(r.id)}#messages`}
+                    className="ml-2 inline-block rounded-full bg-madder-dark px-2 py-0.5 text-xs font-semibold text-white no-underline"
+                    data-testid="unread-badge"
+                    aria-label={`${r.unread} new message${r.unread === 1 ? "" : "s"} on ${r.title}`}
+                  >
+                    {r.unread} new message{r.unread === 1 ? "" : "s"}
+                  </Link>
+                ) : null}
                 <div className="text-sm text-bark">{GARMENT_LABELS[r.garment] ?? r.garment}</div>
               </td>
               <td className="py-3 pr-4">{show === "client" ? r.clientName : r.studioName}</td>

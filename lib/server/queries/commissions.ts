@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, desc, eq, inArray, or, sql, type SQL } from "drizzle-orm";
 import { db, type Tx } from "@/db";
-import { commissionEvents, commissions, studioClients, studios, user } from "@/db/schema";
+import { commissionEvents, commissions, messageReads, messages, studioClients, studios, user } from "@/db/schema";
 import { assertCan, type Actor } from "../authz";
 import { notFound } from "../errors";
 
@@ -37,8 +37,16 @@ export type CommissionListItem = Awaited<ReturnType<typeof listCommissionsFor>>[
 
 export async function listCommissionsFor(actor: Actor, opts: { studioId?: string } = {}) {
   const where = opts.studioId ? and(visibleTo(actor), eq(commissions.studioId, opts.studioId)) : visibleTo(actor);
+  // Messages from others since this person last opened the thread (as the thread itself counts them).
+  const unread = sql<number>`(
+    select count(*)::int from ${messages} m
+    left join ${messageReads} r on r.commission_id = m.commission_id and r.user_id = ${actor.userId}
+    where m.commission_id = ${commissions.id}
+      and m.author_user_id is distinct from ${actor.userId}
+      and (r.last_read_at is null or m.created_at > r.last_read_at)
+  )`;
   return db
-    .select(listColumns)
+    .select({ ...listColumns, unread })
     .from(commissions)
     .innerJoin(studios, eq(studios.id, commissions.studioId))
     .innerJoin(studioClients, eq(studioClients.id, commissions.clientId))
