@@ -14,7 +14,7 @@ import { ScrollArea } from "./scroll-area";
 import { useTickingSeconds } from "./use-ticking-seconds";
 
 export interface PieceDetail {
-  piece: { id: string; name: string; stage: string; estimate: Record<string, { p50: number; p80: number }>; commissionState: string };
+  piece: { id: string; name: string; stage: string; estimate: Record<string, { p50: number; p80: number }>; features: Record<string, number | boolean>; commissionState: string };
   logged: Record<string, number>;
   live: Record<string, number>;
   entries: {

@@ -1,5 +1,6 @@
 // Zod schemas for production: pieces, stage moves, timers, manual time entries, availability, shipping.
 import { z } from "zod";
+import { pieceFeaturesSchema } from "./quotes";
 import { PIECE_STAGES } from "@/lib/core/workflow/pieces";
 
 export const WORK_STAGES = ["knitting", "embroidery", "blocking", "finishing"] as const;
@@ -69,3 +70,7 @@ export const shipSchema = z.object({
   carrier: z.string().trim().min(2, "Name the carrier (or “hand-over in person”).").max(80),
   tracking: z.string().trim().min(1, "Enter the tracking number (or “none”).").max(80),
 });
+
+/** A piece's labour features, corrected by the maker after set-up (the name stays the piece's). */
+export const pieceFeaturesEditSchema = z.strictObject({ features: pieceFeaturesSchema.omit({ label: true }) });
+export type PieceFeaturesEdit = z.output<typeof pieceFeaturesEditSchema>;

@@ -28,9 +28,9 @@ import {
   type PieceEstimateMap,
 } from "@/lib/core/production";
 import { canMovePiece, pieceMovesFrom, type PieceStage } from "@/lib/core/workflow/pieces";
-import type { CommissionState } from "@/lib/core/workflow/states";
+import { TERMINAL_STATES, type CommissionState } from "@/lib/core/workflow/states";
 import { WORK_STAGES, type ManualEntryInput, type WorkStageName } from "@/lib/schemas/production";
-import { manualEntrySchema, editEntrySchema } from "@/lib/schemas/production";
+import { manualEntrySchema, editEntrySchema, pieceFeaturesEditSchema } from "@/lib/schemas/production";
 import type { z } from "zod";
 import { assertCan, memberRole, type Actor } from "./authz";
 import { AppError, conflict, forbidden, notFound } from "./errors";
@@ -565,6 +565,32 @@ export async function deleteEntry(actor: Actor, entryId: string) {
   });
 }
 
+/**
+ * Owner or assistant: corrects a piece's labour features (a design changed after set-up, more
+ * darning than planned) and re-estimates its stages with the studio's rates, in one transaction.
+ * Logged hours are untouched; once the commission is closed (its history written for calibration),
+ * declined or cancelled, its pieces no longer change.
+ */
+export async function updatePieceFeatures(actor: Actor, pieceId: string, raw: unknown) {
+  const input = pieceFeaturesEditSchema.parse(raw);
+  return db.transaction(async (tx) => {
+    const { piece, commissionState } = await loadPieceFor(actor, pieceId, tx, true);
+    assertCan(actor, "commission.work", piece.studioId);
+    if ((TERMINAL_STATES as readonly string[]).includes(commissionState)) {
+      throw conflict("This commission has finished; its pieces' features are kept as they were.");
+    }
+    const settings = await loadStudioSettings(piece.studioId);
+    const features: PieceFeatures = { ...input.features, label: piece.name };
+    const { estimate, dryingHours } = estimatePiece(features, settings.rates);
+    const [updated] = await tx
+      .update(pieces)
+      .set({ features: featuresForStorage(features), estimate, dryingHours, updatedAt: new Date() })
+      .where(eq(pieces.id, piece.id))
+      .returning();
+    return { piece: { id: updated.id, name: updated.name, features: updated.features, estimate: updated.estimate, dryingHours: updated.dryingHours } };
+  });
+}
+
 /** A piece's entries (newest first) and estimate vs logged per stage, for the piece view. */
 export async function getPieceDetail(actor: Actor, pieceId: string) {
   const { piece, commissionState } = await loadPieceFor(actor, pieceId);
@@ -581,7 +607,7 @@ export async function getPieceDetail(actor: Actor, pieceId: string) {
     if (!entry.endedAt) live[entry.stage] = (live[entry.stage] ?? 0) + Math.floor(timerSeconds(entry, now) / 60);
   }
   return {
-    piece: { id: piece.id, name: piece.name, stage: piece.stage, estimate: piece.estimate as StageEstimateMap, commissionState },
+    piece: { id: piece.id, name: piece.name, stage: piece.stage, estimate: piece.estimate as StageEstimateMap, features: piece.features, commissionState },
     logged,
     live,
     entries: entries.map(({ entry, userName }) => ({

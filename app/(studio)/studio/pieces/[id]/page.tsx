@@ -1,11 +1,13 @@
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { PieceFeaturesForm } from "@/components/production/piece-features-form";
 import { PieceLive } from "@/components/production/piece-live";
 import { PiecePhotos } from "@/components/production/piece-photos";
 import { PageTitle } from "@/components/ui/card";
 import { localDate } from "@/lib/core/production";
 import { PIECE_STAGE_LABELS } from "@/lib/core/workflow/pieces";
-import { memberRole } from "@/lib/server/authz";
+import { TERMINAL_STATES } from "@/lib/core/workflow/states";
+import { can, memberRole } from "@/lib/server/authz";
 import { requireStudioMember } from "@/lib/server/page-guards";
 import { getPieceDetail } from "@/lib/server/production";
 import { listPiecePhotos } from "@/lib/server/progress-photos";
@@ -31,6 +33,11 @@ export default async function PiecePage({ params }: { params: Promise<{ id: stri
         me={actor.userId}
         isOwner={memberRole(actor, membership.studioId) === "owner"}
         today={localDate(new Date(), "Europe/London")}
+      />
+      <PieceFeaturesForm
+        pieceId={detail.piece.id}
+        initial={detail.piece.features}
+        canEdit={can(actor, "commission.work", membership.studioId) && !(TERMINAL_STATES as readonly string[]).includes(detail.piece.commissionState)}
       />
       <PiecePhotos pieceId={detail.piece.id} initial={photos} />
     </>
