@@ -10,7 +10,7 @@ import { ApiError, api } from "@/components/production/api";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { CHILD_SAFETY } from "@/lib/core/production/care";
-import { EASE_CATEGORIES, MEASUREMENT_SPECS, STANDARD_SIZES, cmToIn, type SizingResult } from "@/lib/core/sizing";
+import { EASE_CATEGORIES, MEASUREMENT_SPECS, STANDARD_SIZES, cmToIn, getStandardMeasurements, type SizingResult } from "@/lib/core/sizing";
 import { YARN_WEIGHTS, getNeedleSize } from "@/lib/core/yarn";
 import { coreGarment, lengthFields, sizeForm, sizingFormSchema, type SizingFormValues } from "@/lib/schemas/sizing";
 
@@ -92,6 +92,13 @@ export function SizingForm(props: {
   };
 
   const input = "rounded-md border bg-white px-3 py-2 text-base";
+  // A standard size's own value, shown in an empty field so the maker sees what a blank stands for.
+  const standard = values.size ? getStandardMeasurements(garment, values.size) : null;
+  const standardText = (name: string) => {
+    const cm = standard?.[`${name}Cm`];
+    if (cm === undefined) return undefined;
+    return `${unit === "cm" ? Math.round(cm * 10) / 10 : Math.round(cmToIn(cm) * 100) / 100} (size)`;
+  };
   const text = (name: string, label: string, hint?: string, extra: Record<string, unknown> = {}) => {
     const id = `${base}-${name.replace(/\./g, "-")}`;
     const e = errorsFor(name);
@@ -149,7 +156,8 @@ export function SizingForm(props: {
             {lengthFields(garment).map(({ name, kind }) => {
               const spec = MEASUREMENT_SPECS[name as keyof typeof MEASUREMENT_SPECS];
               const label = `${cap(spec.noun)} (${unit})${kind === "required" ? "" : kind === "optional" ? ", optional" : ", garment length, optional"}`;
-              return text(`lengths.${name}`, label, spec.how);
+              const fromSize = standardText(name);
+              return text(`lengths.${name}`, label, spec.how, fromSize ? { placeholder: fromSize } : {});
             })}
           </div>
         </fieldset>
@@ -286,6 +294,14 @@ function SizingOutput({ result, unit }: { result: SizingResult; unit: "cm" | "in
           {Object.entries(result.rows).map(([k, v]) => (
             <tr key={`r-${k}`}><th scope="row" className="pr-3 text-left font-normal">{cap(words(k))}</th><td>{v} rnds</td></tr>
           ))}
+          <tr>
+            <th scope="row" className="pr-3 text-left font-normal">Ease</th>
+            <td>
+              {result.ease.cm > 0 ? "+" : ""}
+              {len(result.ease)}
+              {result.ease.percent !== null ? ` (${result.ease.percent} %)` : ""}
+            </td>
+          </tr>
           {Object.entries(result.finished).map(([k, v]) => (
             <tr key={`f-${k}`}><th scope="row" className="pr-3 text-left font-normal">Finished {words(k)}</th><td>{len(v)}</td></tr>
           ))}
