@@ -9,23 +9,12 @@ import type { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { pieceFeaturesEditSchema } from "@/lib/schemas/production";
+import { FEATURE_FIELDS } from "@/components/quotes/feature-fields";
 import { api, ApiError } from "./api";
 
 const schema = pieceFeaturesEditSchema.shape.features;
 type In = z.input<typeof schema>;
 type Out = z.output<typeof schema>;
-
-const NUMBER_FIELDS: { key: keyof Out; label: string; step?: string }[] = [
-  { key: "plainStitches", label: "Plain stitches" },
-  { key: "strandedStitches", label: "Stranded stitches" },
-  { key: "floatCatches", label: "Float catches" },
-  { key: "shapingRounds", label: "Shaping rounds" },
-  { key: "thumbs", label: "Thumbs" },
-  { key: "duplicateStitches", label: "Duplicate stitches" },
-  { key: "ends", label: "Ends to weave in" },
-  { key: "carryCm", label: "Carry (cm)", step: "0.1" },
-  { key: "proofRounds", label: "Proof rounds" },
-];
 
 export function PieceFeaturesForm(props: { pieceId: string; initial: Record<string, number | boolean>; canEdit: boolean }) {
   const base = useId();
@@ -54,7 +43,7 @@ export function PieceFeaturesForm(props: { pieceId: string; initial: Record<stri
       <p className="mb-3 text-sm text-bark">Correct these when the piece turns out different from its set-up; logged hours stay as they are.</p>
       {status ? <Notice tone={status.tone}>{status.text}</Notice> : null}
       <form onSubmit={submit} noValidate className="mt-2 grid gap-3 sm:grid-cols-3">
-        {NUMBER_FIELDS.map((f) => {
+        {FEATURE_FIELDS.map((f) => {
           const id = `${base}-${f.key}`;
           const e = errs[f.key]?.message;
           return (

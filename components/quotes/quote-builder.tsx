@@ -7,6 +7,7 @@ import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { DesignYarnPanel, type DesignYarnPanelData } from "./design-yarn-panel";
+import { FEATURE_FIELDS } from "./feature-fields";
 import type { PieceFeatures } from "@/lib/core/labour/piece-features";
 import { composeQuote, type QuoteDraft, type QuotePolicy } from "@/lib/core/pricing/compose-quote";
 import { diffQuotes } from "@/lib/core/pricing/diff-quotes";
@@ -20,18 +21,6 @@ interface YarnOption {
   colourName: string;
   priceMinor: number;
 }
-
-const FEATURE_FIELDS: { key: keyof PieceFeatures; label: string; step?: string }[] = [
-  { key: "proofRounds", label: "Proof rounds" },
-  { key: "plainStitches", label: "Plain stitches" },
-  { key: "strandedStitches", label: "Stranded stitches" },
-  { key: "floatCatches", label: "Float catches" },
-  { key: "shapingRounds", label: "Shaping rounds" },
-  { key: "thumbs", label: "Thumbs" },
-  { key: "duplicateStitches", label: "Duplicate stitches" },
-  { key: "ends", label: "Ends to weave in" },
-  { key: "carryCm", label: "Carry (cm)", step: "0.1" },
-];
 
 type MoneyText = { designFee: string; shipping: string; discount: string; rushFee: string; extras: { label: string; amount: string }[] };
 

@@ -580,7 +580,9 @@ export async function updatePieceFeatures(actor: Actor, pieceId: string, raw: un
       throw conflict("This commission has finished; its pieces' features are kept as they were.");
     }
     const settings = await loadStudioSettings(piece.studioId);
-    const features: PieceFeatures = { ...input.features, label: piece.name };
+    // A drying time set for this piece at set-up is kept; the form does not show it.
+    const kept = typeof piece.features.dryingHours === "number" ? { dryingHours: piece.features.dryingHours } : {};
+    const features: PieceFeatures = { ...kept, ...input.features, label: piece.name };
     const { estimate, dryingHours } = estimatePiece(features, settings.rates);
     const [updated] = await tx
       .update(pieces)

@@ -82,17 +82,24 @@ function Cell({ w, children, bold }: { w: number; children: ReactNode; bold?: bo
   return <Text style={{ width: w, ...(bold ? { fontWeight: 700 } : {}) }}>{children}</Text>;
 }
 
+/** Repeated at the top of every page: studio, commission and page number. */
+function SheetHeader({ p }: { p: WorkSheetProps }) {
+  return (
+    <View fixed style={{ flexDirection: "row", justifyContent: "space-between", marginBottom: 6 }}>
+      <Text style={styles.small}>
+        {p.studioName} · work sheet · {p.commission}
+      </Text>
+      <Text style={styles.small} render={({ pageNumber, totalPages }) => `page ${pageNumber} of ${totalPages}`} />
+    </View>
+  );
+}
+
 export function WorkSheetDocument(p: WorkSheetProps) {
   return (
     <Document title={`Work sheet: ${p.title}`} author={p.studioName} language="en-GB">
       {p.recipe ? (
         <Page size="A4" style={styles.page} wrap>
-          <View fixed style={{ flexDirection: "row", justifyContent: "space-between", marginBottom: 6 }}>
-            <Text style={styles.small}>
-              {p.studioName} · work sheet · {p.commission}
-            </Text>
-            <Text style={styles.small} render={({ pageNumber, totalPages }) => `page ${pageNumber} of ${totalPages}`} />
-          </View>
+          <SheetHeader p={p} />
           <Text style={styles.h1}>{p.title}: recipe</Text>
           <Text style={styles.small}>
             Version {p.version} · printed {p.printedOn} · {p.recipe.summary}
@@ -114,12 +121,7 @@ export function WorkSheetDocument(p: WorkSheetProps) {
       ) : null}
       {p.charts.map((c, ci) => (
         <Page key={ci} size="A4" style={styles.page} wrap>
-          <View fixed style={{ flexDirection: "row", justifyContent: "space-between", marginBottom: 6 }}>
-            <Text style={styles.small}>
-              {p.studioName} · work sheet · {p.commission}
-            </Text>
-            <Text style={styles.small} render={({ pageNumber, totalPages }) => `page ${pageNumber} of ${totalPages}`} />
-          </View>
+          <SheetHeader p={p} />
           <Text style={styles.h1}>
             {p.title}: {c.label}
           </Text>

@@ -1,9 +1,9 @@
 // The quote builder shows the yarn the demo hat's design needs per studio yarn, and its button
 // copies those skeins into the quote's yarn lines (nothing is saved here).
-import pg from "pg";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { BASE, expectAccessible, launch, POLL, signInAs, withPage } from "./browser";
+import { withDb } from "./demo-db";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -13,16 +13,11 @@ afterAll(async () => {
   await browser?.close();
 });
 
-async function demoCommission(title: string): Promise<string> {
-  const client = new pg.Client({ connectionString: process.env.DATABASE_URL });
-  await client.connect();
-  try {
+const demoCommission = (title: string) =>
+  withDb(async (client) => {
     const r = await client.query<{ id: string }>("select c.id from commissions c join studios s on s.id = c.studio_id where s.slug = 'hollin-knitworks' and c.title = $1", [title]);
     return r.rows[0].id;
-  } finally {
-    await client.end();
-  }
-}
+  });
 
 describe("yarn from the design", () => {
   test("the hat's colours are matched to the studio's yarns, with metres and skeins, and can fill the quote", async () => {

@@ -4,10 +4,10 @@
 // webhook reached the app) and downloads the receipt; the maker invoices the balance when the piece
 // is ready, the client pays it, and the maker sees both payments in the table.
 import { randomBytes } from "node:crypto";
-import pg from "pg";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { BASE, expectAccessible, launch, POLL, signInAs, withPage } from "./browser";
+import { insertDemoCommission, withDb } from "./demo-db";
 
 const MAIL_API = process.env.LOCAL_MAIL_API ?? "http://127.0.0.1:2580";
 
@@ -21,36 +21,17 @@ afterAll(async () => {
 
 /** A fresh commission for Priya at the demo studio, in "Request received". */
 async function freshCommission(title: string): Promise<string> {
-  const client = new pg.Client({ connectionString: process.env.DATABASE_URL });
-  await client.connect();
-  try {
+  return withDb(async (client) => {
     await client.query("begin");
-    const s = await client.query<{ id: string; no: number }>(
-      "update studios set next_commission_no = next_commission_no + 1 where slug = 'hollin-knitworks' returning id, next_commission_no - 1 as no",
-    );
-    const c = await client.query<{ id: string }>(
-      `insert into commissions (studio_id, client_id, number, title, garment, wearer, state, needed_by, currency, brief)
-       select $1, sc.id, $2, $3, 'hat', 'adult', 'enquiry', '2027-06-01', 'GBP', '{}'::jsonb
-       from studio_clients sc join "user" u on u.id = sc.user_id where sc.studio_id = $1 and u.email = 'priya@example.test'
-       returning id`,
-      [s.rows[0].id, s.rows[0].no, title],
-    );
+    const id = await insertDemoCommission(client, { clientEmail: "priya@example.test", title, garment: "hat", state: "enquiry", neededBy: "2027-06-01" });
     await client.query("commit");
-    return c.rows[0].id;
-  } finally {
-    await client.end();
-  }
+    return id;
+  });
 }
 
 /** Production belongs to another area (and its own tests): here the piece is put at "Ready" directly. */
 async function markReady(commissionId: string) {
-  const client = new pg.Client({ connectionString: process.env.DATABASE_URL });
-  await client.connect();
-  try {
-    await client.query("update commissions set state = 'ready' where id = $1 and state = 'booked'", [commissionId]);
-  } finally {
-    await client.end();
-  }
+  await withDb((client) => client.query("update commissions set state = 'ready' where id = $1 and state = 'booked'", [commissionId]));
 }
 
 async function payOnHostedPage(page: Page, id: string, kind: "deposit" | "balance") {

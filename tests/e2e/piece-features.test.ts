@@ -1,9 +1,9 @@
 // The maker corrects a piece's features on the piece page and the stage estimate follows.
 import { randomBytes } from "node:crypto";
-import pg from "pg";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { BASE, expectAccessible, launch, POLL, signInAs, withPage } from "./browser";
+import { insertDemoCommission, withDb } from "./demo-db";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -15,32 +15,20 @@ afterAll(async () => {
 
 /** A commission of this file's own in production with one hat piece, set up with few darned stitches. */
 async function pieceInProduction(title: string): Promise<string> {
-  const client = new pg.Client({ connectionString: process.env.DATABASE_URL });
-  await client.connect();
-  try {
+  return withDb(async (client) => {
     await client.query("begin");
-    const s = await client.query<{ id: string; no: number }>(
-      "update studios set next_commission_no = next_commission_no + 1 where slug = 'hollin-knitworks' returning id, next_commission_no - 1 as no",
-    );
-    const c = await client.query<{ id: string }>(
-      `insert into commissions (studio_id, client_id, number, title, garment, wearer, state, currency, brief)
-       select $1, sc.id, $2, $3, 'hat', 'adult', 'in_production', 'GBP', '{}'::jsonb
-       from studio_clients sc join "user" u on u.id = sc.user_id where sc.studio_id = $1 and u.email = 'priya@example.test'
-       returning id`,
-      [s.rows[0].id, s.rows[0].no, title],
-    );
+    const id = await insertDemoCommission(client, { clientEmail: "priya@example.test", title, state: "in_production" });
     const p = await client.query<{ id: string }>(
       `insert into pieces (studio_id, commission_id, name, features, estimate)
-       values ($1, $2, 'Hat', '{"plainStitches":6000,"strandedStitches":3000,"duplicateStitches":20,"ends":2}'::jsonb,
-               '{"knitting":{"p50":600,"p80":720},"embroidery":{"p50":10,"p80":15},"blocking":{"p50":20,"p80":30},"finishing":{"p50":20,"p80":30}}'::jsonb)
+       select studio_id, id, 'Hat', '{"plainStitches":6000,"strandedStitches":3000,"duplicateStitches":20,"ends":2}'::jsonb,
+              '{"knitting":{"p50":600,"p80":720},"embroidery":{"p50":10,"p80":15},"blocking":{"p50":20,"p80":30},"finishing":{"p50":20,"p80":30}}'::jsonb
+       from commissions where id = $1
        returning id`,
-      [s.rows[0].id, c.rows[0].id],
+      [id],
     );
     await client.query("commit");
     return p.rows[0].id;
-  } finally {
-    await client.end();
-  }
+  });
 }
 
 describe("a piece's features", () => {

@@ -2,10 +2,10 @@
 // is caught and the inches suggested, the cast-on and recipe follow the gauge as it is typed, the
 // saved sizing shows on the commission page and opens a new design at its chart sizes.
 import { randomBytes } from "node:crypto";
-import pg from "pg";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { BASE, expectAccessible, launch, PHONE, POLL, signInAs, withPage } from "./browser";
+import { insertDemoCommission, withDb } from "./demo-db";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -16,27 +16,8 @@ afterAll(async () => {
 });
 
 /** A hat commission of this file's own for Elias at the demo studio, with a 57 cm head in the brief. */
-async function freshHat(title: string): Promise<string> {
-  const client = new pg.Client({ connectionString: process.env.DATABASE_URL });
-  await client.connect();
-  try {
-    await client.query("begin");
-    const s = await client.query<{ id: string; no: number }>(
-      "update studios set next_commission_no = next_commission_no + 1 where slug = 'hollin-knitworks' returning id, next_commission_no - 1 as no",
-    );
-    const c = await client.query<{ id: string }>(
-      `insert into commissions (studio_id, client_id, number, title, garment, wearer, state, currency, brief)
-       select $1, sc.id, $2, $3, 'hat', 'adult', 'quoting', 'GBP', '{"measurements":{"headCircumferenceCm":57}}'::jsonb
-       from studio_clients sc join "user" u on u.id = sc.user_id where sc.studio_id = $1 and u.email = 'elias@example.test'
-       returning id`,
-      [s.rows[0].id, s.rows[0].no, title],
-    );
-    await client.query("commit");
-    return c.rows[0].id;
-  } finally {
-    await client.end();
-  }
-}
+const freshHat = (title: string) =>
+  withDb((client) => insertDemoCommission(client, { clientEmail: "elias@example.test", title, state: "quoting", brief: { measurements: { headCircumferenceCm: 57 } } }));
 
 describe("sizing a commission", () => {
   test("measurements and gauge give the cast-on and recipe live; the saved sizing sizes the design", async () => {

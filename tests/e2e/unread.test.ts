@@ -1,10 +1,10 @@
 // The client's commission list marks a commission with messages they have not read; opening the
 // thread clears the mark.
 import { randomBytes } from "node:crypto";
-import pg from "pg";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { BASE, expectAccessible, launch, POLL, signInAs, withPage } from "./browser";
+import { insertDemoCommission, withDb } from "./demo-db";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -16,31 +16,18 @@ afterAll(async () => {
 
 /** A commission of this file's own for Saoirse, with two messages from Maren she has not read. */
 async function commissionWithMessages(title: string): Promise<string> {
-  const client = new pg.Client({ connectionString: process.env.DATABASE_URL });
-  await client.connect();
-  try {
+  return withDb(async (client) => {
     await client.query("begin");
-    const s = await client.query<{ id: string; no: number }>(
-      "update studios set next_commission_no = next_commission_no + 1 where slug = 'hollin-knitworks' returning id, next_commission_no - 1 as no",
-    );
-    const c = await client.query<{ id: string }>(
-      `insert into commissions (studio_id, client_id, number, title, garment, wearer, state, currency, brief)
-       select $1, sc.id, $2, $3, 'hat', 'adult', 'quoting', 'GBP', '{}'::jsonb
-       from studio_clients sc join "user" u on u.id = sc.user_id where sc.studio_id = $1 and u.email = 'saoirse@example.test'
-       returning id`,
-      [s.rows[0].id, s.rows[0].no, title],
-    );
+    const id = await insertDemoCommission(client, { clientEmail: "saoirse@example.test", title, state: "quoting" });
     await client.query(
       `insert into messages (commission_id, author_user_id, author_role, body, client_key)
        select $1, u.id, 'owner', b.body, b.k from "user" u, (values ('The yarn is here.', 'e2e-1'), ('Swatching tonight.', 'e2e-2')) as b(body, k)
        where u.email = 'maren@hollin.test'`,
-      [c.rows[0].id],
+      [id],
     );
     await client.query("commit");
-    return c.rows[0].id;
-  } finally {
-    await client.end();
-  }
+    return id;
+  });
 }
 
 describe("unread messages on the commission list", () => {

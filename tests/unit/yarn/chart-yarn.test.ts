@@ -1,29 +1,10 @@
 import fc from "fast-check";
 import { describe, expect, test } from "vitest";
-import { createChart, type Chart } from "@/lib/core/chart/model";
+import { createChart } from "@/lib/core/chart/model";
 import { countAreas, estimateChartYarn } from "@/lib/core/yarn/chart-yarn";
 import { estimateYarn } from "@/lib/core/yarn/estimate-yarn";
 import { getLoopLengthCm } from "@/lib/core/yarn/loop-length";
-
-const PALETTE = [
-  { key: "A", name: "Cream", hex: "#F0EAD6" },
-  { key: "B", name: "Navy", hex: "#1F2A44" },
-  { key: "C", name: "Red", hex: "#C0392B" },
-  { key: "D", name: "Gold", hex: "#D4A017" },
-];
-
-/** rows given top first, as on paper */
-function chartOf(rows: string[], stitchesPer10cm = 20): Chart {
-  const width = rows[0].length;
-  const chart = createChart(width, rows.length, { stitchesPer10cm, rowsPer10cm: 28 }, PALETTE);
-  rows.forEach((text, i) => {
-    const y = rows.length - 1 - i;
-    [...text].forEach((ch, x) => {
-      chart.cells[y * width + x] = PALETTE.findIndex((p) => p.key === ch);
-    });
-  });
-  return chart;
-}
+import { PALETTE, chartOf } from "./charts";
 
 // At 20 sts / 10 cm: loop length 4.2 ÷ 2 = 2.1 cm (Munden 1959), stitch width 0.5 cm.
 const SMALL = chartOf(["ABCA", "AAAA"]);

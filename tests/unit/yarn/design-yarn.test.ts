@@ -1,26 +1,9 @@
 import fc from "fast-check";
 import { describe, expect, test } from "vitest";
-import { createChart, type Chart } from "@/lib/core/chart/model";
+import type { Chart } from "@/lib/core/chart/model";
 import { estimateChartYarn } from "@/lib/core/yarn/chart-yarn";
 import { estimateDesignYarn, matchStudioYarn, type StudioYarnRecord } from "@/lib/core/yarn/design-yarn";
-
-const PALETTE = [
-  { key: "A", name: "Cream", hex: "#F0EAD6" },
-  { key: "B", name: "Navy", hex: "#1F2A44" },
-  { key: "C", name: "Red", hex: "#C0392B" },
-];
-
-function chartOf(rows: string[], stitchesPer10cm = 20): Chart {
-  const width = rows[0].length;
-  const chart = createChart(width, rows.length, { stitchesPer10cm, rowsPer10cm: 28 }, PALETTE);
-  rows.forEach((text, i) => {
-    const y = rows.length - 1 - i;
-    [...text].forEach((ch, x) => {
-      chart.cells[y * width + x] = PALETTE.findIndex((p) => p.key === ch);
-    });
-  });
-  return chart;
-}
+import { chartOf } from "./charts";
 
 const YARNS: StudioYarnRecord[] = [
   { id: "y-cream", name: "Fellside 4-ply", colourName: "Cream", hex: "#f0ead6", metresPerSkein: 2, gramsPerSkein: 50, lots: [{ lot: "L1", skeins: 40 }] },
