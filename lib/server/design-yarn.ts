@@ -117,6 +117,7 @@ export async function getCommissionYarnEstimate(
   const defaults = optionsFromSettings(settings);
   const charts: DesignChartYarnInput[] = [];
   const used: DesignChartEntry[] = [];
+  const skipped: string[] = [];
   for (const entry of priced.version.charts) {
     let chart: Chart;
     try {
@@ -125,8 +126,14 @@ export async function getCommissionYarnEstimate(
       continue; // a chart that does not parse is left out, as the labour estimate leaves it out
     }
     const fixed = (entry.options ?? {}) as PlanOptionsInput;
-    // Every garment template is knitted in the round.
-    const plan = planChart(chart, { inTheRound: true, ...fixed }, defaults);
+    let plan;
+    try {
+      // Every garment template is knitted in the round.
+      plan = planChart(chart, { inTheRound: true, ...fixed }, defaults);
+    } catch (e) {
+      skipped.push(`${entry.label}: ${(e as Error).message}`);
+      continue;
+    }
     charts.push({ label: entry.label, chart, plan: plan.darning, knit: plan.colours.knit });
     used.push(entry);
   }
@@ -135,5 +142,6 @@ export async function getCommissionYarnEstimate(
   const { plain, note } = plainParts(c.garment, c.brief ?? {}, row?.sizing ?? null, used, charts[0].chart.gauge);
   const records = await studioYarnRecords(c.studioId, c.id);
   const estimate = estimateDesignYarn({ charts, yarns: records, plain });
-  return { ...estimate, designTitle: priced.design.title, designVersion: priced.version.number, plainNote: note };
+  const warnings = [...skipped.map((s) => `left out, its colour plan could not be made (${s})`), ...estimate.warnings];
+  return { ...estimate, warnings, designTitle: priced.design.title, designVersion: priced.version.number, plainNote: note };
 }

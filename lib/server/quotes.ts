@@ -115,7 +115,11 @@ export async function getQuoteBuilderData(actor: Actor, commissionId: string) {
     .orderBy(asc(yarns.colourName));
   const versions = await db.select().from(quoteVersions).where(eq(quoteVersions.commissionId, c.id)).orderBy(desc(quoteVersions.number));
   const fromDesign = await designFeatures(c.id, settings.floatLimitStitches, settings.carryLimitCm);
-  const yarnEstimate = await getCommissionYarnEstimate(actor, c);
+  // A suggestion only: if it cannot be worked out the builder still opens, with the yarn lines to fill in.
+  const yarnEstimate = await getCommissionYarnEstimate(actor, c).catch((err: unknown) => {
+    console.error("yarn estimate:", (err as Error).message);
+    return null;
+  });
   const known = new Set(yarnRows.map((y) => y.id));
   const suggested = (yarnEstimate?.lines ?? []).filter((l) => l.yarnId && known.has(l.yarnId) && l.skeins);
   // What the studio's schedule can promise for this garment after everything already booked.
