@@ -12,7 +12,9 @@ export const sizingFormSchema = z.strictObject({
   size: z.string().max(40),
   unit: z.enum(["cm", "in"]),
   /** body measurements and garment lengths, by name without unit, as typed */
-  lengths: z.record(z.string().max(40), z.string().max(20)),
+  lengths: z
+    .record(z.string().max(40), z.string().max(20))
+    .refine((r) => Object.keys(r).length <= 20, { error: "Too many lengths." }),
   easeMode: z.enum(["default", "category", "value"]),
   easeCategory: z.enum(EASE_KEYS),
   /** in `unit`, negative for a smaller garment */

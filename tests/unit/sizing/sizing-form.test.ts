@@ -112,3 +112,11 @@ test("property: a head measured in cm or the same head in inches (to 0.01 in) ca
 test("a core field the form has no place for is shown on the form as a whole", () => {
   expect(formFieldOf("something.else")).toBe("form");
 });
+
+test("the saved form's shape is bounded: unknown fields and a flood of lengths are refused", async () => {
+  const { sizingFormSchema } = await import("@/lib/schemas/sizing");
+  expect(sizingFormSchema.safeParse(hat()).success).toBe(true);
+  expect(sizingFormSchema.safeParse({ ...hat(), extra: 1 }).success).toBe(false);
+  const flood = Object.fromEntries(Array.from({ length: 21 }, (_, i) => [`x${i}`, "1"]));
+  expect(sizingFormSchema.safeParse(hat({ lengths: flood })).success).toBe(false);
+});
