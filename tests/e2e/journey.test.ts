@@ -200,7 +200,7 @@ describe("the commission journey", () => {
     await shot(phone.page, "demo-proof", async () => {
       await signInAs(phone.page, "priya@example.test");
       await phone.page.waitForURL(`${BASE}/portal`);
-      await phone.page.getByRole("link", { name: "Yoke pullover with a fox band" }).click();
+      await phone.page.getByRole("link", { name: "Yoke pullover with a fox band", exact: true }).click();
       await phone.page.waitForURL(/\/portal\/commissions\//);
       await expect.poll(() => phone.page.getByText("Could the foxes face the other way on the back?").count(), POLL).toBe(1);
       await expectAccessible(phone.page);

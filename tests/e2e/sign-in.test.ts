@@ -39,7 +39,7 @@ describe("signing in as each demo role", () => {
     withPage(browser, `price-form-${who}`, async (page) => {
       await signInAs(page, email);
       await page.waitForURL(`${BASE}/studio`);
-      await page.getByRole("link", { name: "Watch cap with E.B. band" }).click();
+      await page.getByRole("link", { name: "Watch cap with E.B. band", exact: true }).click();
       await page.waitForURL(/\/studio\/commissions\//);
       await expectAccessible(page);
       expect(await page.getByRole("button", { name: "Save price" }).count()).toBe(form);
