@@ -318,3 +318,33 @@ describe("bad input is refused with the field named", () => {
     ).toThrow('newPieces[0] ("p").id: "p" is used by another piece');
   });
 });
+
+// Found by the property "booking one more piece never makes a new request's promise earlier"
+// (fast-check seed 807557146), when members were chosen stage by stage.
+describe("members are chosen for the whole piece, not stage by stage", () => {
+  const members: ScheduleMember[] = [
+    { id: "amy", weekdayMinutes: { mon: 68, tue: 0, wed: 30, thu: 248, fri: 0, sat: 62, sun: 36 }, daysOff: [] },
+    { id: "ines", weekdayMinutes: { mon: 0, tue: 30, wed: 144, thu: 30, fri: 0, sat: 30, sun: 178 }, daysOff: [], weeklyCapMinutes: 240 },
+  ];
+  const queue = [{ id: "p0", commissionId: "c1", due: TODAY, stages: { embroidery: { minutes: 563, memberIds: ["amy", "ines"] }, finishing: { minutes: 73, memberIds: ["amy"] } } }];
+  const request = { id: "new", stages: { embroidery: { minutes: 894, memberIds: ["amy", "ines"] }, finishing: { minutes: 67, memberIds: ["ines"] } } };
+
+  test("embroidery goes to Amy although Ines would end it a day sooner, because only Ines can finish", () => {
+    const plan = planSchedule({ today: TODAY, members, pieces: [...queue, { ...request, commissionId: "c2", due: "2027-01-01" }] });
+    const mine = plan.pieces.find((p) => p.pieceId === "new")!;
+    expect(mine.stages.map((s) => [s.stage, s.memberId])).toEqual([
+      ["embroidery", "amy"],
+      ["finishing", "ines"],
+    ]);
+    // Ines embroidering (to 25 March) would leave her finishing to 31 March; this way it ends on the 29th.
+    expect(mine.finish).toBe("2026-03-29");
+  });
+
+  test("one more minute booked for Ines no longer brings the promise forward", () => {
+    const booked = { id: "b", commissionId: "c1", due: "2026-12-27", stages: { finishing: { minutes: 1, memberIds: ["ines"] } } };
+    const without = earliestPromiseDate({ today: TODAY, members, queue, newPieces: [request] });
+    const withMore = earliestPromiseDate({ today: TODAY, members, queue: [...queue, booked], newPieces: [request] });
+    expect(without.date).toBe("2026-03-29");
+    expect(withMore.date >= without.date).toBe(true);
+  });
+});
