@@ -24,37 +24,33 @@ export interface PlacedPiece {
 /** Work chosen for the piece but not yet booked, per member: minutes by day and by ISO week. */
 type Pending = Map<string, { day: Map<number, number>; week: Map<number, number> }>;
 
-function freeWith(ledger: CapacityLedger, memberId: string, day: number, pending: Pending): number {
-  const mine = pending.get(memberId);
-  const monday = weekStart(day);
-  const dayFree = ledger.dayCapacity(memberId, day) - ledger.bookedOn(memberId, day) - (mine?.day.get(day) ?? 0);
-  const weekFree = ledger.weekCapacity(memberId) - ledger.bookedInWeek(memberId, monday) - (mine?.week.get(monday) ?? 0);
-  return Math.max(0, Math.min(dayFree, weekFree));
-}
-
-function addPending(pending: Pending, memberId: string, takes: Take[]): void {
+/** Adds (sign 1) or takes back (sign −1) a stage's takes in the piece's pending work. */
+function addPending(pending: Pending, memberId: string, takes: Take[], sign: 1 | -1 = 1): void {
   let mine = pending.get(memberId);
   if (!mine) pending.set(memberId, (mine = { day: new Map(), week: new Map() }));
   for (const t of takes) {
-    mine.day.set(t.day, (mine.day.get(t.day) ?? 0) + t.minutes);
+    mine.day.set(t.day, (mine.day.get(t.day) ?? 0) + sign * t.minutes);
     const monday = weekStart(t.day);
-    mine.week.set(monday, (mine.week.get(monday) ?? 0) + t.minutes);
+    mine.week.set(monday, (mine.week.get(monday) ?? 0) + sign * t.minutes);
   }
 }
 
-/** Where `minutes` of work would go for one member from `fromDay`, without booking it. */
+/** Where `minutes` of work would go for one member from `fromDay`, after `pending`, without booking it. */
 function simulate(ledger: CapacityLedger, memberId: string, fromDay: number, minutes: number, today: number, pending: Pending): Take[] | null {
+  const base = pending.get(memberId);
   const takes: Take[] = [];
-  const mine: Pending = new Map(pending);
-  mine.set(memberId, { day: new Map(pending.get(memberId)?.day), week: new Map(pending.get(memberId)?.week) });
+  const weekExtra = new Map<number, number>();
   let left = minutes;
   for (let day = fromDay; left > 0; day++) {
     if (day - today > HORIZON_DAYS) return null;
-    const free = freeWith(ledger, memberId, day, mine);
+    const monday = weekStart(day);
+    const dayFree = ledger.dayCapacity(memberId, day) - ledger.bookedOn(memberId, day) - (base?.day.get(day) ?? 0);
+    const weekFree = ledger.weekCapacity(memberId) - ledger.bookedInWeek(memberId, monday) - (base?.week.get(monday) ?? 0) - (weekExtra.get(monday) ?? 0);
+    const free = Math.max(0, Math.min(dayFree, weekFree));
     if (free === 0) continue;
     const take = Math.min(free, left);
     takes.push({ day, minutes: take });
-    addPending(mine, memberId, [{ day, minutes: take }]);
+    weekExtra.set(monday, (weekExtra.get(monday) ?? 0) + take);
     left -= take;
   }
   return takes;
@@ -67,51 +63,6 @@ interface Trial {
   finish: number | null;
   dryUntil: number | null;
   lastDay: number;
-}
-
-/**
- * Works the piece through its stages with one member per stage from `pick`, on the free minutes
- * left after what the earlier stages of this piece take. Null when a stage cannot be placed.
- */
-function trial(
-  ledger: CapacityLedger,
-  piece: Pick<SchedulePiece, "stages" | "dryingHours">,
-  today: number,
-  pick: (stage: StageName, readyDay: number, pending: Pending) => { memberId: string; takes: Take[] } | null,
-): Trial | null {
-  const pending: Pending = new Map();
-  let readyDay = today;
-  // The last day anything happened to the piece; "yesterday" when nothing is left before drying.
-  let lastDay = today - 1;
-  let start: number | null = null;
-  let finish: number | null = null;
-  let dryUntil: number | null = null;
-  const steps: Trial["steps"] = [];
-  for (const stage of WORK_STAGES) {
-    const work = piece.stages[stage];
-    if (work && work.minutes > 0) {
-      const chosen = pick(stage, readyDay, pending);
-      if (!chosen) return null;
-      addPending(pending, chosen.memberId, chosen.takes);
-      steps.push({ stage, ...chosen });
-      const first = chosen.takes[0].day;
-      const last = chosen.takes[chosen.takes.length - 1].day;
-      start ??= first;
-      finish = last;
-      lastDay = last;
-      readyDay = last + 1;
-    }
-    if (stage === "blocking" && (piece.dryingHours ?? 0) > 0) {
-      // Drying is counted from the end of the day blocking ended, in whole days, so it is never short.
-      const dryDays = Math.ceil((piece.dryingHours ?? 0) / 24);
-      dryUntil = lastDay + dryDays;
-      start ??= today;
-      finish = dryUntil;
-      lastDay = dryUntil;
-      readyDay = dryUntil + 1;
-    }
-  }
-  return { steps, start, finish, dryUntil, lastDay };
 }
 
 /** Earlier piece finish first; then earlier stage finishes in order; then lower member ids in order. */
@@ -167,36 +118,55 @@ export function placePiece(
     assignments *= ids.length;
   }
 
-  // Stage by stage: the member who would finish this stage first, the lower id on a tie.
-  const greedy = (stage: StageName, readyDay: number, pending: Pending) => {
-    let best: { memberId: string; takes: Take[] } | null = null;
-    for (const memberId of candidates.get(stage)!) {
-      const takes = simulate(ledger, memberId, readyDay, piece.stages[stage]!.minutes, today, pending);
-      if (!takes) continue;
-      if (!best || takes[takes.length - 1].day < best.takes[best.takes.length - 1].day) best = { memberId, takes };
+  // Depth first over the stages, the member who ends a stage soonest tried first, so the first
+  // complete plan is the stage-by-stage one and later ones only replace it when they are better.
+  // A branch stops once a stage ends after the best finish so far. Beyond MAX_ASSIGNMENTS ways only
+  // that first plan is made.
+  const wide = assignments <= MAX_ASSIGNMENTS;
+  const dryDays = Math.ceil((piece.dryingHours ?? 0) / 24);
+  const pending: Pending = new Map();
+  const steps: Trial["steps"] = [];
+  const found: { best: Trial | null } = { best: null };
+  const search = (j: number, readyDay: number, lastDay: number, start: number | null, finish: number | null, dryUntil: number | null): void => {
+    if (j === WORK_STAGES.length) {
+      const t: Trial = { steps: steps.map((x) => ({ ...x })), start, finish, dryUntil, lastDay };
+      if (!found.best || better(t, found.best)) found.best = t;
+      return;
     }
-    return best;
-  };
-  let best = trial(ledger, piece, today, greedy);
-  if (assignments > 1 && assignments <= MAX_ASSIGNMENTS) {
-    const stages = [...candidates.keys()];
-    const choice = new Array<number>(stages.length).fill(0);
-    for (let n = 0; n < assignments; n++) {
-      let k = n;
-      for (let i = stages.length - 1; i >= 0; i--) {
-        const size = candidates.get(stages[i])!.length;
-        choice[i] = k % size;
-        k = Math.floor(k / size);
+    const stage = WORK_STAGES[j];
+    const next = (ready: number, last: number, st: number | null, fin: number | null) => {
+      if (stage === "blocking" && dryDays > 0) {
+        // Drying is counted from the end of the day blocking ended, in whole days, so it is never short.
+        const until = last + dryDays;
+        search(j + 1, until + 1, until, st ?? today, until, until);
+      } else {
+        search(j + 1, ready, last, st, fin, dryUntil);
       }
-      const fixed = (stage: StageName, readyDay: number, pending: Pending) => {
-        const memberId = candidates.get(stage)![choice[stages.indexOf(stage)]];
-        const takes = simulate(ledger, memberId, readyDay, piece.stages[stage]!.minutes, today, pending);
-        return takes ? { memberId, takes } : null;
-      };
-      const t = trial(ledger, piece, today, fixed);
-      if (t && (!best || better(t, best))) best = t;
+    };
+    const ids = candidates.get(stage);
+    if (!ids) {
+      next(readyDay, lastDay, start, finish);
+      return;
     }
-  }
+    const options = ids
+      .map((memberId) => ({ memberId, takes: simulate(ledger, memberId, readyDay, piece.stages[stage]!.minutes, today, pending) }))
+      .filter((o): o is { memberId: string; takes: Take[] } => o.takes !== null)
+      .sort((a, b) => a.takes[a.takes.length - 1].day - b.takes[b.takes.length - 1].day || compareIds(a.memberId, b.memberId));
+    for (const o of wide ? options : options.slice(0, 1)) {
+      const first = o.takes[0].day;
+      const last = o.takes[o.takes.length - 1].day;
+      const bestFinish = found.best?.finish ?? null;
+      if (bestFinish !== null && last > bestFinish) continue;
+      addPending(pending, o.memberId, o.takes);
+      steps.push({ stage, memberId: o.memberId, takes: o.takes });
+      next(last + 1, last, start ?? first, last);
+      steps.pop();
+      addPending(pending, o.memberId, o.takes, -1);
+    }
+  };
+  // "Yesterday" is the last day anything happened when nothing is left before drying.
+  search(0, today, today - 1, null, null, null);
+  const best = found.best;
   if (!best) throw unplaceable(where, [...candidates.keys()][0] ?? "knitting");
 
   const stages: StagePlan[] = [];
