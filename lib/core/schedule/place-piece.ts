@@ -126,7 +126,7 @@ export function placePiece(
   const dryDays = Math.ceil((piece.dryingHours ?? 0) / 24);
   const pending: Pending = new Map();
   const steps: Trial["steps"] = [];
-  const found: { best: Trial | null } = { best: null };
+  const found: { best: Trial | null; stuck: StageName | null } = { best: null, stuck: null };
   const search = (j: number, readyDay: number, lastDay: number, start: number | null, finish: number | null, dryUntil: number | null): void => {
     if (j === WORK_STAGES.length) {
       const t: Trial = { steps: steps.map((x) => ({ ...x })), start, finish, dryUntil, lastDay };
@@ -152,6 +152,7 @@ export function placePiece(
       .map((memberId) => ({ memberId, takes: simulate(ledger, memberId, readyDay, piece.stages[stage]!.minutes, today, pending) }))
       .filter((o): o is { memberId: string; takes: Take[] } => o.takes !== null)
       .sort((a, b) => a.takes[a.takes.length - 1].day - b.takes[b.takes.length - 1].day || compareIds(a.memberId, b.memberId));
+    if (options.length === 0) found.stuck ??= stage;
     for (const o of wide ? options : options.slice(0, 1)) {
       const first = o.takes[0].day;
       const last = o.takes[o.takes.length - 1].day;
@@ -167,7 +168,7 @@ export function placePiece(
   // "Yesterday" is the last day anything happened when nothing is left before drying.
   search(0, today, today - 1, null, null, null);
   const best = found.best;
-  if (!best) throw unplaceable(where, [...candidates.keys()][0] ?? "knitting");
+  if (!best) throw unplaceable(where, found.stuck ?? [...candidates.keys()][0] ?? "knitting");
 
   const stages: StagePlan[] = [];
   const blocks: ScheduleBlock[] = [];
