@@ -24,7 +24,7 @@ export interface CommissionYarnEstimate extends DesignYarnEstimate {
   plainNote: string;
 }
 
-/** The design version a quote prices: the approved one if any, else the head. */
+/** The design version a quote prices: the approved one if any, else the head. No permission check: callers read the commission for their actor first. */
 export async function getPricedDesignVersion(commissionId: string) {
   const [d] = await db.select().from(designs).where(eq(designs.commissionId, commissionId)).orderBy(desc(designs.updatedAt)).limit(1);
   if (!d) return null;
