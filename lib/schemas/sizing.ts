@@ -141,6 +141,12 @@ export function sizeForm(garment: "mittens" | "hat" | "pullover" | GarmentKind, 
 /** Default stranded gauge for fingering-weight colourwork (CYC category 1 range, firm end). */
 export const DEFAULT_SIZING_GAUGE = { stitchesPer10cm: 32, rowsPer10cm: 36 };
 
+/** The standard size a brief's size label names ("Woman M" → "woman"), or "" when it names none. */
+export function sizeKeyFromLabel(label: string | undefined, sizeKeys: string[]): string {
+  const words = (label ?? "").toLowerCase().split(/[^a-z0-9-]+/).filter(Boolean);
+  return sizeKeys.find((k) => words.includes(k.toLowerCase())) ?? "";
+}
+
 /** A first form for a commission: the brief's size and measurements, the studio's usual gauge. */
 export function defaultSizingForm(
   garmentKind: "mittens" | "hat" | "pullover" | GarmentKind,
@@ -148,8 +154,7 @@ export function defaultSizingForm(
   sizeKeys: string[],
 ): SizingFormValues {
   const garment = coreGarment(garmentKind);
-  const words = (brief.sizeLabel ?? "").toLowerCase().split(/[^a-z0-9-]+/).filter(Boolean);
-  const size = sizeKeys.find((k) => words.includes(k.toLowerCase())) ?? "";
+  const size = sizeKeyFromLabel(brief.sizeLabel, sizeKeys);
   const given = brief.measurements ?? {};
   const inchesOnly = Object.keys(given).length > 0 && Object.keys(given).every((k) => k.endsWith("In"));
   const unit = inchesOnly ? "in" : "cm";

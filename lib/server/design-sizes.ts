@@ -2,7 +2,7 @@ import "server-only";
 // Chart sizes a commission's garment needs, from the sizing core, when the brief says enough.
 import type { CommissionBrief, GarmentKind } from "@/db/schema";
 import { getSizeKeys, sizeGarment, type SizingResult } from "@/lib/core/sizing";
-import { DEFAULT_SIZING_GAUGE } from "@/lib/schemas/sizing";
+import { DEFAULT_SIZING_GAUGE, sizeKeyFromLabel } from "@/lib/schemas/sizing";
 
 export interface SizeOffer {
   area: string;
@@ -12,19 +12,15 @@ export interface SizeOffer {
   note: string;
 }
 
-/** Default stranded gauge for fingering-weight mittens and hats (CYC category 1 range, firm end). */
-export const DEFAULT_GAUGE = DEFAULT_SIZING_GAUGE;
-
 /** The sizing core's answer for a commission's brief at a gauge, or why it has none. */
 export function sizeFromBrief(
   garment: GarmentKind,
   brief: CommissionBrief,
-  gauge: { stitchesPer10cm: number; rowsPer10cm: number } = DEFAULT_GAUGE,
+  gauge: { stitchesPer10cm: number; rowsPer10cm: number } = DEFAULT_SIZING_GAUGE,
 ): { result: SizingResult | null; size: string | null; reason: string | null } {
   const kind = garment === "mittens" ? "mitten" : garment;
   const keys = getSizeKeys(kind);
-  const words = (brief.sizeLabel ?? "").toLowerCase().split(/[^a-z0-9-]+/).filter(Boolean);
-  const size = keys.find((k) => words.includes(k.toLowerCase())) ?? null;
+  const size = sizeKeyFromLabel(brief.sizeLabel, keys) || null;
   const measurements = brief.measurements ?? {};
   if (!size && Object.keys(measurements).length === 0) {
     return { result: null, size: null, reason: "The brief has no size or measurements yet" };
@@ -53,16 +49,4 @@ export function offersFrom(result: SizingResult): SizeOffer[] {
       height: c.height,
       note: c.note,
     }));
-}
-
-export function getSizeOffers(
-  garment: GarmentKind,
-  brief: CommissionBrief,
-  gauge = DEFAULT_GAUGE,
-): { offers: SizeOffer[]; size: string | null; reason: string | null } {
-  const { result, size, reason } = sizeFromBrief(garment, brief, gauge);
-  if (!result) {
-    return { offers: [], size, reason: `${reason}${reason?.startsWith("The brief") ? ", so" : ";"} choose the chart size by hand.` };
-  }
-  return { size: result.size, reason: null, offers: offersFrom(result) };
 }

@@ -10,9 +10,9 @@ import { estimatePlainYarn, type PlainYarnEstimate } from "@/lib/core/yarn/garme
 import { estimateDesignYarn, type DesignChartYarnInput, type DesignYarnEstimate, type StudioYarnRecord } from "@/lib/core/yarn/design-yarn";
 import { assertCan, type Actor } from "./authz";
 import { optionsFromSettings, planChart, type PlanOptionsInput } from "./colour-plan";
-import { areaSlug, sizeFromBrief } from "./design-sizes";
+import { areaSlug } from "./design-sizes";
 import { loadStudioSettings } from "./settings";
-import { sizedCommission } from "./sizing";
+import { loadSizing, resolveSizing } from "./sizing";
 
 /** Commission states that no longer hold yarn (as the yarn records count them). */
 const NOT_HOLDING = ["shipped", "delivered", "closed", "declined", "cancelled"] as const;
@@ -75,17 +75,13 @@ async function studioYarnRecords(studioId: string, commissionId: string): Promis
 }
 
 function plainParts(
-  garment: GarmentKind,
-  brief: CommissionBrief,
-  sizing: unknown,
+  c: { garment: GarmentKind; brief: CommissionBrief | null; sizing: unknown },
   entries: DesignChartEntry[],
   chartGauge: Chart["gauge"],
 ): { plain: PlainYarnEstimate | null; note: string } {
   // The studio's saved sizing first (its measured gauge); else the brief at the chart's gauge.
-  const saved = sizedCommission({ garment, sizing });
-  const fromBrief = saved ? null : sizeFromBrief(garment, brief, chartGauge);
-  const result = saved ?? fromBrief?.result ?? null;
-  if (!result) return { plain: null, note: `${fromBrief?.reason ?? "Nothing to size from"}: only the charts are counted, not the garment's plain parts.` };
+  const { result, saved, reason } = resolveSizing(c, chartGauge);
+  if (!result) return { plain: null, note: `${reason ?? "Nothing to size from"}: only the charts are counted, not the garment's plain parts.` };
   const gauge = result.gauge;
   const slugs = entries.map((e) => e.area);
   const charted = result.charts.map((c) => c.area).filter((area) => slugs.some((s) => s === areaSlug(area) || s.startsWith(`${areaSlug(area)}-`)));
@@ -109,9 +105,11 @@ function plainParts(
 export async function getCommissionYarnEstimate(
   actor: Actor,
   c: { id: string; studioId: string; garment: GarmentKind; brief: CommissionBrief | null },
+  /** the priced version when the caller has loaded it already */
+  preloaded?: Awaited<ReturnType<typeof getPricedDesignVersion>>,
 ): Promise<CommissionYarnEstimate | null> {
   assertCan(actor, "studio.view", c.studioId);
-  const priced = await getPricedDesignVersion(c.id);
+  const priced = preloaded === undefined ? await getPricedDesignVersion(c.id) : preloaded;
   if (!priced || priced.design.studioId !== c.studioId) return null;
   const settings = await loadStudioSettings(c.studioId);
   const defaults = optionsFromSettings(settings);
@@ -138,8 +136,7 @@ export async function getCommissionYarnEstimate(
     used.push(entry);
   }
   if (!charts.length) return null;
-  const [row] = await db.select({ sizing: commissions.sizing }).from(commissions).where(eq(commissions.id, c.id));
-  const { plain, note } = plainParts(c.garment, c.brief ?? {}, row?.sizing ?? null, used, charts[0].chart.gauge);
+  const { plain, note } = plainParts({ ...c, sizing: await loadSizing(c.id) }, used, charts[0].chart.gauge);
   const records = await studioYarnRecords(c.studioId, c.id);
   const estimate = estimateDesignYarn({ charts, yarns: records, plain });
   const warnings = [...skipped.map((s) => `left out, its colour plan could not be made (${s})`), ...estimate.warnings];

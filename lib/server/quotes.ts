@@ -80,8 +80,13 @@ export function taxNote(q: Quote): string {
 // --- the builder ------------------------------------------------------------------------------
 
 /** Features for each charted piece of the commission's newest design version, if it has one. */
-async function designFeatures(commissionId: string, floatLimit: number, carryLimitCm: number): Promise<{ pieces: PieceFeatures[]; designVersionId: string | null }> {
-  const priced = await getPricedDesignVersion(commissionId);
+async function designFeatures(
+  commissionId: string,
+  floatLimit: number,
+  carryLimitCm: number,
+  preloaded?: Awaited<ReturnType<typeof getPricedDesignVersion>>,
+): Promise<{ pieces: PieceFeatures[]; designVersionId: string | null }> {
+  const priced = preloaded === undefined ? await getPricedDesignVersion(commissionId) : preloaded;
   if (!priced) return { pieces: [], designVersionId: null };
   const v = priced.version;
   const pieces: PieceFeatures[] = [];
@@ -114,9 +119,10 @@ export async function getQuoteBuilderData(actor: Actor, commissionId: string) {
     .where(eq(yarns.studioId, c.studioId))
     .orderBy(asc(yarns.colourName));
   const versions = await db.select().from(quoteVersions).where(eq(quoteVersions.commissionId, c.id)).orderBy(desc(quoteVersions.number));
-  const fromDesign = await designFeatures(c.id, settings.floatLimitStitches, settings.carryLimitCm);
+  const priced = await getPricedDesignVersion(c.id);
+  const fromDesign = await designFeatures(c.id, settings.floatLimitStitches, settings.carryLimitCm, priced);
   // A suggestion only: if it cannot be worked out the builder still opens, with the yarn lines to fill in.
-  const yarnEstimate = await getCommissionYarnEstimate(actor, c).catch((err: unknown) => {
+  const yarnEstimate = await getCommissionYarnEstimate(actor, c, priced).catch((err: unknown) => {
     console.error("yarn estimate:", (err as Error).message);
     return null;
   });

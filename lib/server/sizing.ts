@@ -4,9 +4,10 @@ import "server-only";
 import { eq } from "drizzle-orm";
 import { db } from "@/db";
 import { commissions, type CommissionBrief, type GarmentKind } from "@/db/schema";
-import { getSizeKeys, type SizeGarmentInput, type SizingResult } from "@/lib/core/sizing";
-import { coreGarment, defaultSizingForm, sizeForm, sizingFormSchema, toSizeInput, type SizingFormValues } from "@/lib/schemas/sizing";
+import { getSizeKeys, type SizingResult } from "@/lib/core/sizing";
+import { DEFAULT_SIZING_GAUGE, coreGarment, defaultSizingForm, sizeForm, sizingFormSchema, type SizingFormValues } from "@/lib/schemas/sizing";
 import { assertCan, type Actor } from "./authz";
+import { sizeFromBrief } from "./design-sizes";
 import { AppError, validationError } from "./errors";
 import { getCommissionFor } from "./queries/commissions";
 
@@ -17,13 +18,6 @@ export function savedSizingForm(raw: unknown): SizingFormValues | null {
   return parsed.success ? parsed.data : null;
 }
 
-/** The core input of a commission's saved sizing, or null when there is none that sizes. */
-export function sizingInputOf(c: { garment: GarmentKind; sizing: unknown }): SizeGarmentInput | null {
-  const values = savedSizingForm(c.sizing);
-  if (!values) return null;
-  return toSizeInput(c.garment, values).input;
-}
-
 /** The sizing result of a commission's saved sizing, or null (nothing saved, or it no longer sizes). */
 export function sizedCommission(c: { garment: GarmentKind; sizing: unknown }): SizingResult | null {
   const values = savedSizingForm(c.sizing);
@@ -31,7 +25,22 @@ export function sizedCommission(c: { garment: GarmentKind; sizing: unknown }): S
   return sizeForm(c.garment, values).result;
 }
 
-async function loadSizing(commissionId: string) {
+/**
+ * What a commission's garment sizes to: the studio's saved sizing (its measured gauge) when there
+ * is one that sizes, else the brief at `briefGauge`, else why neither does.
+ */
+export function resolveSizing(
+  c: { garment: GarmentKind; brief: CommissionBrief | null; sizing: unknown },
+  briefGauge: { stitchesPer10cm: number; rowsPer10cm: number } = DEFAULT_SIZING_GAUGE,
+): { result: SizingResult | null; saved: boolean; reason: string | null } {
+  const saved = sizedCommission(c);
+  if (saved) return { result: saved, saved: true, reason: null };
+  const { result, reason } = sizeFromBrief(c.garment, c.brief ?? {}, briefGauge);
+  return { result, saved: false, reason };
+}
+
+/** The commission's saved sizing form as stored (no permission check: callers read the commission first). */
+export async function loadSizing(commissionId: string): Promise<unknown> {
   const [row] = await db.select({ sizing: commissions.sizing }).from(commissions).where(eq(commissions.id, commissionId));
   return row?.sizing ?? null;
 }

@@ -1,8 +1,9 @@
 import Link from "next/link";
 import { notFound, redirect } from "next/navigation";
 import { Card, PageTitle } from "@/components/ui/card";
-import { getSizeOffers, DEFAULT_GAUGE, offersFrom } from "@/lib/server/design-sizes";
-import { getCommissionSizing, sizedCommission } from "@/lib/server/sizing";
+import { DEFAULT_SIZING_GAUGE } from "@/lib/schemas/sizing";
+import { offersFrom } from "@/lib/server/design-sizes";
+import { loadSizing, resolveSizing } from "@/lib/server/sizing";
 import { getCommissionDesign, listStudioYarnColours } from "@/lib/server/designs";
 import { can } from "@/lib/server/authz";
 import { requireStudioMember } from "@/lib/server/page-guards";
@@ -20,12 +21,12 @@ export default async function NewDesignPage({ searchParams }: { searchParams: Pr
   const existing = await getCommissionDesign(actor, c.id);
   if (existing) redirect(`/studio/designs/${existing.id}`);
   // The studio's saved sizing (its measured gauge) when there is one; else the brief at a usual gauge.
-  const saved = await getCommissionSizing(actor, c.id);
-  const sized = saved.saved ? sizedCommission({ garment: c.garment, sizing: saved.values }) : null;
+  const sizing = resolveSizing({ ...c, sizing: await loadSizing(c.id) });
   const round1 = (v: number) => Math.round(v * 10) / 10;
-  const gauge = sized ? { stitchesPer10cm: round1(sized.gauge.stitchesPer10cm), rowsPer10cm: round1(sized.gauge.rowsPer10cm) } : DEFAULT_GAUGE;
-  const sizing = sized ? { offers: offersFrom(sized), size: sized.size, reason: null } : getSizeOffers(c.garment, c.brief ?? {});
+  const gauge =
+    sizing.saved && sizing.result ? { stitchesPer10cm: round1(sizing.result.gauge.stitchesPer10cm), rowsPer10cm: round1(sizing.result.gauge.rowsPer10cm) } : DEFAULT_SIZING_GAUGE;
   const at = `${gauge.stitchesPer10cm} sts and ${gauge.rowsPer10cm} rows per 10 cm`;
+  const size = sizing.result?.size;
   const yarns = await listStudioYarnColours(actor, c.studioId);
   return (
     <>
@@ -34,11 +35,13 @@ export default async function NewDesignPage({ searchParams }: { searchParams: Pr
         <NewDesignForm
           commissionId={c.id}
           defaultTitle={`${c.title} – design`}
-          offers={sizing.offers}
+          offers={sizing.result ? offersFrom(sizing.result) : []}
           sizeNote={
-            sized
-              ? `Chart sizes from the commission's saved sizing${sized.size ? ` (size “${sized.size}”)` : ""} at ${at}.`
-              : (sizing.reason ?? (sizing.size ? `Chart sizes for standard size “${sizing.size}” at ${at}; save the sizing with your own gauge to use it here.` : `Chart sizes from the brief's measurements at ${at}; save the sizing with your own gauge to use it here.`))
+            !sizing.result
+              ? `${sizing.reason}; choose the chart size by hand, or work out the sizing first.`
+              : sizing.saved
+                ? `Chart sizes from the commission's saved sizing${size ? ` (size “${size}”)` : ""} at ${at}.`
+                : `Chart sizes ${size ? `for standard size “${size}”` : "from the brief's measurements"} at ${at}; save the sizing with your own gauge to use it here.`
           }
           gauge={gauge}
           yarns={yarns}
