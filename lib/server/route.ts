@@ -17,7 +17,8 @@ export function errorResponse(err: unknown): Response {
   if (err instanceof AppError) {
     return Response.json(
       { error: { code: err.code, message: err.message, fieldErrors: err.fieldErrors } },
-      { status: err.status },
+      // 413: the rest of the body was not read, so the connection cannot carry another request.
+      { status: err.status, headers: err.status === 413 ? { connection: "close" } : undefined },
     );
   }
   if (err instanceof z.ZodError) return errorResponse(validationError(err));

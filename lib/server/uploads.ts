@@ -6,10 +6,15 @@ import { and, eq, inArray, isNull } from "drizzle-orm";
 import sharp from "sharp";
 import { db, type Tx } from "@/db";
 import { uploads, type Upload } from "@/db/schema";
+import { readBodyLimited } from "./body-limit";
 import { AppError } from "./errors";
 import { putObject, signedDownloadUrl } from "./storage";
 
 export const MAX_UPLOAD_BYTES = 10 * 1024 * 1024;
+/** A multipart body may carry this much beside the photo (boundaries, headers, small fields). */
+export const MAX_UPLOAD_BODY_BYTES = MAX_UPLOAD_BYTES + 64 * 1024;
+const TOO_LARGE = "That photo is larger than 10 MB; please send a smaller one.";
+
 /** 40 megapixels: more than any phone camera; refuses decompression bombs. */
 export const MAX_UPLOAD_PIXELS = 40_000_000;
 const MAX_EDGE = 2400;
@@ -43,7 +48,7 @@ export interface CleanImage {
 /** Checks and re-encodes one image; throws a 422 with the reason when it is refused. */
 export async function cleanImage(bytes: Buffer): Promise<CleanImage> {
   if (bytes.length === 0) throw refuse("That file is empty.");
-  if (bytes.length > MAX_UPLOAD_BYTES) throw refuse("That photo is larger than 10 MB; please send a smaller one.");
+  if (bytes.length > MAX_UPLOAD_BYTES) throw refuse(TOO_LARGE);
   const kind = sniffImage(bytes);
   if (!kind) throw refuse("That file is not a JPEG, PNG or WebP photo (we check the file itself, not its name).");
   let meta: Awaited<ReturnType<ReturnType<typeof sharp>["metadata"]>>;
@@ -118,19 +123,26 @@ export async function readUploadedFile(req: Request): Promise<Buffer> {
   return (await readUploadedForm(req)).bytes;
 }
 
-/** Like readUploadedFile, also giving the form's other fields. */
+/**
+ * Like readUploadedFile, also giving the form's other fields. The body is streamed with the limit
+ * enforced while reading (413 at MAX_UPLOAD_BODY_BYTES, with or without a Content-Length), and only
+ * then parsed, so no upload ever holds more than the limit in memory.
+ */
 export async function readUploadedForm(req: Request): Promise<{ bytes: Buffer; form: FormData }> {
-  const declared = Number(req.headers.get("content-length") ?? "0");
-  if (declared > MAX_UPLOAD_BYTES + 64 * 1024) throw refuse("That photo is larger than 10 MB; please send a smaller one.");
+  const contentType = req.headers.get("content-type") ?? "";
+  if (!/^multipart\/form-data\s*;/i.test(contentType)) {
+    throw new AppError(400, "bad_upload", "Send the photo as a form upload with the field name “file”.");
+  }
+  const raw = await readBodyLimited(req, MAX_UPLOAD_BODY_BYTES, TOO_LARGE);
   let form: FormData;
   try {
-    form = await req.formData();
+    form = await new Response(new Uint8Array(raw.buffer, raw.byteOffset, raw.byteLength), { headers: { "content-type": contentType } }).formData();
   } catch {
     throw new AppError(400, "bad_upload", "Send the photo as a form upload with the field name “file”.");
   }
   const file = form.get("file");
   if (!file || typeof file === "string") throw new AppError(400, "bad_upload", "Choose a photo to upload.");
-  if (file.size > MAX_UPLOAD_BYTES) throw refuse("That photo is larger than 10 MB; please send a smaller one.");
+  if (file.size > MAX_UPLOAD_BYTES) throw refuse(TOO_LARGE);
   return { bytes: Buffer.from(await file.arrayBuffer()), form };
 }
 
