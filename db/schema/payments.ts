@@ -51,10 +51,19 @@ export const refunds = pgTable("refunds", {
 });
 
 /** Each provider event once: a replay is acknowledged and ignored. */
+/** processed: applied; ignored: a type we do not use (acknowledged); rejected: signed but malformed (400). */
+export const webhookEventStatus = pgEnum("webhook_event_status", ["processed", "ignored", "rejected"]);
+
+/**
+ * Every verified provider event, once. A rejected one is keyed `rejected_<sha256 of the body>` (its
+ * own id may be missing or unusable) and keeps why in `detail`.
+ */
 export const webhookEvents = pgTable("webhook_events", {
   id: text("id").primaryKey(),
   type: text("type").notNull(),
   payload: jsonb("payload").$type<Record<string, unknown>>().notNull(),
+  status: webhookEventStatus("status").notNull().default("processed"),
+  detail: text("detail"),
   receivedAt: timestamp("received_at", { withTimezone: true }).notNull().defaultNow(),
   processedAt: timestamp("processed_at", { withTimezone: true }),
 });

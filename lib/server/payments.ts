@@ -3,10 +3,11 @@ import "server-only";
 // as the only source of payment state, refunds by the studio's cancellation policy, and the
 // invoices and receipts that go with them. With STRIPE_API_URL set the SDK talks to the local
 // fake (scripts/fakes/payments.ts); with real keys and no STRIPE_API_URL, to Stripe.
-import { randomUUID } from "node:crypto";
+import { createHash, randomUUID } from "node:crypto";
 import { and, asc, desc, eq, gte, inArray, lt, sql } from "drizzle-orm";
 import { createElement } from "react";
 import Stripe from "stripe";
+import type { z } from "zod";
 import { db, type Tx } from "@/db";
 import {
   commissionEvents,
@@ -31,6 +32,7 @@ import { policyFromSettings } from "@/lib/core/pricing/studio-policy";
 import { formatMoney } from "@/lib/core/pricing/format-money";
 import { canMove } from "@/lib/core/workflow";
 import { env } from "@/lib/env";
+import { eventEnvelopeSchema, HANDLED_EVENT_TYPES, handledEventSchema } from "@/lib/schemas/payment-events";
 import { documentMessage } from "@/templates/email/money";
 import { InvoiceDocument } from "@/templates/pdf/invoice";
 import { assertCan, can, type Actor } from "./authz";
@@ -380,24 +382,83 @@ export async function requestBalance(actor: Actor, commissionId: string): Promis
 
 type Outcome = { status: number; body: Record<string, unknown> };
 
+/** Provider events are small; anything larger is refused before it is read whole. */
+export const MAX_WEBHOOK_BYTES = 1024 * 1024;
+
+/** A copy PostgreSQL's jsonb accepts: NUL and lone surrogates replaced, nesting cut at 32 levels. */
+function storable(value: unknown, depth = 0): unknown {
+  const clean = (s: string) => s.replace(/\u0000|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/g, "\uFFFD");
+  if (typeof value === "string") return clean(value);
+  if (value === null || typeof value !== "object") return value;
+  if (depth >= 32) return "[nested too deeply]";
+  if (Array.isArray(value)) return value.map((v) => storable(v, depth + 1));
+  return Object.fromEntries(Object.entries(value).map(([k, v]) => [clean(k), storable(v, depth + 1)]));
+}
+
+function issuesText(error: z.ZodError): string {
+  return error.issues
+    .slice(0, 8)
+    .map((i) => `${i.path.join(".") || "(event)"}: ${i.message}`)
+    .join("; ")
+    .slice(0, 1000);
+}
+
+/** Records a signed event that cannot be applied, once per distinct body; answers 400 so it is seen. */
+async function rejectEvent(rawBody: string, parsed: unknown, detail: string): Promise<Outcome> {
+  const obj = parsed && typeof parsed === "object" && !Array.isArray(parsed) ? (parsed as Record<string, unknown>) : null;
+  const claimedType = typeof obj?.type === "string" ? obj.type : "(none)";
+  await db
+    .insert(webhookEvents)
+    .values({
+      id: `rejected_${createHash("sha256").update(rawBody).digest("hex").slice(0, 40)}`,
+      type: (storable(claimedType) as string).slice(0, 255),
+      payload: (obj ? storable(obj) : { raw: storable(rawBody.slice(0, 4096)) }) as Record<string, unknown>,
+      status: "rejected",
+      detail,
+    })
+    .onConflictDoNothing();
+  return { status: 400, body: { error: "The event is signed but malformed; it was recorded as rejected and not applied.", detail } };
+}
+
 /**
- * Verifies and applies one provider event. The event id is written in the same transaction as
- * its effects, so a replay (or a racing duplicate) is acknowledged and changes nothing, and a
- * failure part-way leaves no trace and is retried by the provider.
+ * Verifies and applies one provider event. The signature is checked on the raw body; then the
+ * event's shape is checked field by field (a signed but malformed event is recorded as rejected and
+ * answered 400; a type we do not use is recorded and acknowledged). The event id is written in the
+ * same transaction as its effects, so a replay (or a racing duplicate, from any app instance) is
+ * acknowledged and changes nothing, and a failure part-way leaves no trace and is retried.
  */
 export async function handleWebhook(rawBody: string, signature: string | null): Promise<Outcome> {
   const secret = env.STRIPE_WEBHOOK_SECRET;
   if (!secret) return { status: 503, body: { error: "webhooks are not configured" } };
-  let event: Stripe.Event;
   try {
-    event = stripe().webhooks.constructEvent(rawBody, signature ?? "", secret);
+    stripe().webhooks.signature!.verifyHeader(rawBody, signature ?? "", secret);
   } catch {
     return { status: 400, body: { error: "The signature does not match; the event was not applied." } };
   }
+  let parsed: unknown;
+  try {
+    parsed = JSON.parse(rawBody);
+  } catch {
+    return rejectEvent(rawBody, null, "the body is not JSON");
+  }
+  const base = eventEnvelopeSchema.safeParse(parsed);
+  if (!base.success) return rejectEvent(rawBody, parsed, issuesText(base.error));
+  if (!(HANDLED_EVENT_TYPES as readonly string[]).includes(base.data.type)) {
+    const [fresh] = await db
+      .insert(webhookEvents)
+      .values({ id: base.data.id, type: base.data.type, payload: storable(parsed) as Record<string, unknown>, status: "ignored", detail: "not a type Darnwell uses", processedAt: new Date() })
+      .onConflictDoNothing()
+      .returning({ id: webhookEvents.id });
+    return { status: 200, body: { received: true, ...(fresh ? {} : { duplicate: true }), ignored: `event type ${base.data.type} is not used` } };
+  }
+  const checked = handledEventSchema.safeParse(parsed);
+  if (!checked.success) return rejectEvent(rawBody, parsed, issuesText(checked.error));
+  // The checked fields are the ones applyEvent reads; the rest of the event passes through as sent.
+  const event = checked.data as unknown as Stripe.Event;
   return db.transaction(async (tx) => {
     const [fresh] = await tx
       .insert(webhookEvents)
-      .values({ id: event.id, type: event.type, payload: event as unknown as Record<string, unknown> })
+      .values({ id: event.id, type: event.type, payload: storable(parsed) as Record<string, unknown>, status: "processed" })
       .onConflictDoNothing()
       .returning({ id: webhookEvents.id });
     if (!fresh) return { status: 200, body: { received: true, duplicate: true } };
@@ -407,9 +468,11 @@ export async function handleWebhook(rawBody: string, signature: string | null): 
   });
 }
 
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
 async function paymentFor(tx: Tx, ref: { paymentId?: string | null; sessionId?: string | null; intentId?: string | null }): Promise<Payment | null> {
   const conds = [];
-  if (ref.paymentId && /^[0-9a-f-]{36}$/i.test(ref.paymentId)) conds.push(eq(payments.id, ref.paymentId));
+  if (ref.paymentId && UUID.test(ref.paymentId)) conds.push(eq(payments.id, ref.paymentId));
   if (ref.sessionId) conds.push(eq(payments.checkoutSessionId, ref.sessionId));
   if (ref.intentId) conds.push(eq(payments.paymentIntentId, ref.intentId));
   for (const cond of conds) {
