@@ -17,14 +17,18 @@ PIDS=()
 STARTED_PG=""
 cleanup() {
   trap - EXIT INT TERM
+  [ -n "${WATCHDOG_PID:-}" ] && kill "$WATCHDOG_PID" 2>/dev/null || true
   say "stopping"
   for pid in "${PIDS[@]}"; do kill -TERM -- "-$pid" 2>/dev/null || kill -TERM "$pid" 2>/dev/null || true; done
+  stop_descendants
   wait 2>/dev/null || true
   [ -n "$STARTED_PG" ] && pg_down "$STARTED_PG"
   say "stopped"
 }
 trap cleanup EXIT
 trap 'exit 130' INT TERM
+# npm passes INT/TERM on to this script (package.json runs it with exec); if npm itself dies, stop too.
+watch_parent
 
 ensure_node_modules
 

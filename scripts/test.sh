@@ -19,13 +19,17 @@ mkdir -p "$TMP"
 PIDS=()
 cleanup() {
   trap - EXIT INT TERM
+  [ -n "${WATCHDOG_PID:-}" ] && kill "$WATCHDOG_PID" 2>/dev/null || true
   for pid in "${PIDS[@]}"; do kill -TERM -- "-$pid" 2>/dev/null || kill -TERM "$pid" 2>/dev/null || true; done
+  stop_descendants
   wait 2>/dev/null || true
   pg_down "$TMP/pg"
   rm -rf "$TMP"
 }
 trap cleanup EXIT
 trap 'exit 130' INT TERM
+# npm passes INT/TERM on to this script (package.json runs it with exec); if npm itself dies, stop too.
+watch_parent
 
 FAILED_STEPS=()
 step_fail() { FAILED_STEPS+=("$1"); printf '\033[1;31m[darnwell] %s failed\033[0m\n' "$1"; }
@@ -72,13 +76,13 @@ npx tsx db/seed.ts || die "seeding failed"
 
 # --- static checks -----------------------------------------------------------------------
 say "typecheck"
-npx tsc --noEmit || step_fail typecheck
+run_step npx tsc --noEmit || step_fail typecheck
 say "lint"
-npx eslint --max-warnings 0 . || step_fail lint
+run_step npx eslint --max-warnings 0 . || step_fail lint
 
 # --- unit + integration ------------------------------------------------------------------
 say "unit and integration tests"
-OUTBOX_WORKER=off AUTH_SIGNIN_LIMIT=5 npx vitest run --reporter=default --reporter=json --outputFile.json="$TMP/vitest.json" \
+run_step env OUTBOX_WORKER=off AUTH_SIGNIN_LIMIT=5 npx vitest run --reporter=default --reporter=json --outputFile.json="$TMP/vitest.json" \
   || step_fail "unit/integration tests"
 
 # --- end-to-end --------------------------------------------------------------------------
@@ -89,7 +93,7 @@ if build_app "$DIST" 2>&1; then
     setsid npx next start -H 127.0.0.1 -p "$APP_PORT" >"$TMP/app.log" 2>&1 &
   PIDS+=($!)
   if wait_http "http://127.0.0.1:$APP_PORT/api/health" 90; then
-    E2E_BASE_URL="$BETTER_AUTH_URL" npx vitest run --config vitest.e2e.config.mts --reporter=default \
+    run_step env E2E_BASE_URL="$BETTER_AUTH_URL" E2E_DIST_DIR="$DIST" npx vitest run --config vitest.e2e.config.mts --reporter=default \
       --reporter=json --outputFile.json="$E2E_JSON" || step_fail "end-to-end tests"
   else
     tail -n 30 "$TMP/app.log"; step_fail "app start"

@@ -30,7 +30,7 @@ ensure_node_modules() {
   want="$(sha256sum package-lock.json | cut -d' ' -f1)"
   if [ ! -d node_modules ] || [ ! -f "$stamp" ] || [ "$(cat "$stamp")" != "$want" ]; then
     say "installing npm dependencies (npm ci)"
-    npm ci --no-audit --no-fund --loglevel=error || die "npm ci failed"
+    run_step npm ci --no-audit --no-fund --loglevel=error || die "npm ci failed"
     echo "$want" > "$stamp"
   fi
 }
@@ -152,7 +152,49 @@ build_app() {
     return 0
   fi
   say "building the app (next build → $dist)"
-  NEXT_DIST_DIR="$dist" NEXT_TELEMETRY_DISABLED=1 npx next build >"$log" 2>&1 \
+  run_step env NEXT_DIST_DIR="$dist" NEXT_TELEMETRY_DISABLED=1 npx next build >"$log" 2>&1 \
     || { tail -n 40 "$log"; die "next build failed (full log: ${log#$ROOT/})"; }
   echo "$want" > "$stamp"
+}
+
+# All processes below PID (children first found, then theirs), not including PID itself.
+descendants() {
+  local c
+  for c in $(pgrep -P "$1" 2>/dev/null); do
+    echo "$c"
+    descendants "$c"
+  done
+}
+
+# run_step CMD…: runs a long step (install, build, test run) in the background and waits for it. Bash
+# holds a trapped signal back until a foreground command ends, so a build of several minutes would
+# delay Ctrl-C or SIGTERM that long; `wait` is interrupted at once, and the EXIT trap then stops the
+# step with stop_descendants.
+run_step() {
+  "$@" &
+  wait $!
+}
+
+# stop_descendants: SIGTERM to every process below this script (a step still running, the services).
+stop_descendants() {
+  local pid
+  for pid in $(descendants "$$"); do kill -TERM "$pid" 2>/dev/null || true; done
+}
+
+# watch_parent: npm runs a script under `sh -c` and passes no signal on to it, so `kill <npm pid>`
+# would leave everything running. A watchdog notices when the script's parent is gone and stops the
+# script as if it had been interrupted: every process below it gets SIGTERM (a long foreground step
+# such as the build would otherwise hold back the trap), then the script itself, whose EXIT trap
+# stops the services and the database.
+watch_parent() {
+  local parent="$PPID" me="$$"
+  (
+    while kill -0 "$parent" 2>/dev/null; do sleep 1; done
+    say "the parent process ($parent) is gone: stopping"
+    for pid in $(descendants "$me"); do
+      [ "$pid" = "$BASHPID" ] || kill -TERM "$pid" 2>/dev/null || true
+    done
+    kill -TERM "$me" 2>/dev/null || true
+  ) &
+  WATCHDOG_PID=$!
 }
