@@ -136,7 +136,7 @@ export async function readUploadedForm(req: Request): Promise<{ bytes: Buffer; f
   const raw = await readBodyLimited(req, MAX_UPLOAD_BODY_BYTES, TOO_LARGE);
   let form: FormData;
   try {
-    form = await new Response(new Uint8Array(raw.buffer, raw.byteOffset, raw.byteLength), { headers: { "content-type": contentType } }).formData();
+    form = await new Response(new Uint8Array(raw.buffer as ArrayBuffer, raw.byteOffset, raw.byteLength), { headers: { "content-type": contentType } }).formData();
   } catch {
     throw new AppError(400, "bad_upload", "Send the photo as a form upload with the field name “file”.");
   }
