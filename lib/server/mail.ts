@@ -28,6 +28,9 @@ function transport(): Transporter {
       auth: url.username ? { user: decodeURIComponent(url.username), pass: decodeURIComponent(url.password) } : undefined,
       connectionTimeout: 10_000,
       greetingTimeout: 10_000,
+      // Well inside the outbox lease (120 s): a send still hanging when the lease ends would let
+      // another instance's worker take the row and send it a second time.
+      socketTimeout: 60_000,
     });
   }
   return globalForMail.darnwellMail;

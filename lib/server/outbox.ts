@@ -11,7 +11,8 @@ import { sendMail, type MailMessage } from "./mail";
 export const MAX_ATTEMPTS = 8;
 /** seconds before attempt n+1: 5 s, 10 s, 20 s … capped at one hour */
 export const backoffSeconds = (attempts: number) => Math.min(3600, 5 * 2 ** Math.max(0, attempts - 1));
-const LEASE_SECONDS = 120;
+/** A leased row is left alone by every other worker this long; sends time out well before (mail.ts). */
+export const LEASE_SECONDS = 120;
 
 export interface QueuedMail {
   to: string;
