@@ -37,4 +37,4 @@ NEXT_DIST_DIR=".next-$NAME" NODE_ENV=production AUTH_SIGNIN_LIMIT=500 setsid npx
 APP=$!
 trap 'kill -TERM -- -$APP 2>/dev/null; [ -n "${PAYFAKE:-}" ] && kill -TERM -- -$PAYFAKE 2>/dev/null' EXIT
 wait_http "http://127.0.0.1:$PORT/api/health" 90 || { tail -n 30 "$ROOT/.data/app-$NAME.log"; die "app did not start"; }
-E2E_BASE_URL="http://127.0.0.1:$PORT" npx vitest run --config vitest.e2e.config.mts "$@"
+E2E_BASE_URL="http://127.0.0.1:$PORT" E2E_DIST_DIR=".next-$NAME" npx vitest run --config vitest.e2e.config.mts "$@"
