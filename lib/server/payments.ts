@@ -7,7 +7,7 @@ import { randomUUID } from "node:crypto";
 import { and, asc, desc, eq, gte, inArray, lt, sql } from "drizzle-orm";
 import { createElement } from "react";
 import Stripe from "stripe";
-import { db, type Tx } from "@/db";
+import { db, type Executor, type Tx } from "@/db";
 import {
   commissionEvents,
   commissions,
@@ -204,7 +204,7 @@ export async function allocateDocumentNumber(tx: Tx, studioId: string, kind: "in
   return row.next - 1;
 }
 
-async function paidSoFar(tx: Tx | typeof db, commissionId: string) {
+async function paidSoFar(tx: Executor, commissionId: string) {
   const rows = await tx
     .select({ kind: payments.kind, amount: payments.amountMinor, refunded: payments.refundedMinor })
     .from(payments)
@@ -311,7 +311,6 @@ export async function renderDocumentPdf(doc: Invoice): Promise<Buffer> {
 async function enqueueDocumentMail(tx: Tx, doc: Invoice) {
   const k = doc.content as unknown as DocumentContent;
   const row = await getCommissionMailParties(tx, doc.commissionId);
-  const pdf = await renderDocumentPdf(doc);
   const mail = documentMessage({
     kind: doc.kind,
     number: k.number,
@@ -324,7 +323,8 @@ async function enqueueDocumentMail(tx: Tx, doc: Invoice) {
     accentHex: row.brandHex,
   });
   await enqueueMail(
-    { to: row.clientEmail, ...mail, studioId: doc.studioId, dedupeKey: `document-${doc.id}`, attachments: [{ filename: `${k.number}.pdf`, contentType: "application/pdf", base64: pdf.toString("base64") }] },
+    // The PDF is rendered by the outbox worker when it sends, never inside this transaction.
+    { to: row.clientEmail, ...mail, studioId: doc.studioId, dedupeKey: `document-${doc.id}`, attachments: [{ filename: `${k.number}.pdf`, contentType: "application/pdf", render: `document:${doc.id}` }] },
     tx,
   );
 }
