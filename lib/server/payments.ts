@@ -34,7 +34,7 @@ import { env } from "@/lib/env";
 import { documentMessage } from "@/templates/email/money";
 import { InvoiceDocument } from "@/templates/pdf/invoice";
 import { assertCan, can, type Actor } from "./authz";
-import { AppError, conflict, notFound } from "./errors";
+import { AppError, conflict, notFound, nullIfNotFound } from "./errors";
 import { enqueueMail } from "./outbox";
 import { renderPdf } from "./pdf";
 import { getCommissionFor, getCommissionMailParties } from "./queries/commissions";
@@ -333,9 +333,7 @@ async function enqueueDocumentMail(tx: Tx, doc: Invoice) {
 export async function getDocumentFor(actor: Actor, id: string): Promise<Invoice> {
   const [doc] = await db.select().from(invoices).where(eq(invoices.id, id));
   if (!doc) throw notFound("That document");
-  await getCommissionFor(actor, doc.commissionId).catch(() => {
-    throw notFound("That document");
-  });
+  if (!(await getCommissionFor(actor, doc.commissionId).catch(nullIfNotFound))) throw notFound("That document");
   return doc;
 }
 

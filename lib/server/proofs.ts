@@ -13,7 +13,7 @@ import type { RequestChangesInput } from "@/lib/schemas/proofs";
 import { proofAnsweredMessage, proofReadyMessage } from "@/templates/email/journey";
 import { assertCan, memberRole, type Actor } from "./authz";
 import { renderPreviewPng } from "./chart-png";
-import { AppError, conflict, notFound } from "./errors";
+import { AppError, conflict, notFound, nullIfNotFound } from "./errors";
 import { enqueueMail } from "./outbox";
 import { getCommissionFor, getCommissionMailParties } from "./queries/commissions";
 import { moveCommission } from "./workflow";
@@ -111,7 +111,7 @@ export async function sendProof(actor: Actor, commissionId: string, note: string
 async function proofRowFor(actor: Actor, proofId: string) {
   const [p] = await db.select().from(proofs).where(eq(proofs.id, proofId));
   if (!p) throw notFound("That proof");
-  const c = await getCommissionFor(actor, p.commissionId).catch(() => null);
+  const c = await getCommissionFor(actor, p.commissionId).catch(nullIfNotFound);
   if (!c) throw notFound("That proof");
   return { p, c };
 }

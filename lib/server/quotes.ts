@@ -18,7 +18,7 @@ import type { StudioSettings } from "@/lib/schemas/settings";
 import { QuoteDocument } from "@/templates/pdf/quote";
 import { quoteSentMessage } from "@/templates/email/money";
 import { assertCan, can, type Actor } from "./authz";
-import { AppError, conflict, notFound } from "./errors";
+import { AppError, conflict, notFound, nullIfNotFound } from "./errors";
 import { enqueueMail } from "./outbox";
 import { renderPdf } from "./pdf";
 import { getCommissionFor, getCommissionMailParties } from "./queries/commissions";
@@ -272,7 +272,7 @@ export async function renderQuotePdf(v: QuoteVersion): Promise<Buffer> {
 export async function getQuoteFor(actor: Actor, quoteId: string, q: Executor = db): Promise<QuoteVersion> {
   const [v] = await q.select().from(quoteVersions).where(eq(quoteVersions.id, quoteId));
   if (!v) throw notFound("That quote");
-  const c = await getCommissionFor(actor, v.commissionId, q).catch(() => null);
+  const c = await getCommissionFor(actor, v.commissionId, q).catch(nullIfNotFound);
   if (!c) throw notFound("That quote");
   if (!can(actor, "studio.view", c.studioId) && v.status === "draft") throw notFound("That quote");
   return v;

@@ -17,6 +17,7 @@ import { describe, expect, test } from "vitest";
 import { db, getPool, inTransaction, isDatabaseBusy, PooledQueryInTransactionError } from "@/db";
 import { studios } from "@/db/schema";
 import { toErrorState } from "@/lib/server/action";
+import { notFound, nullIfNotFound } from "@/lib/server/errors";
 import { errorResponse } from "@/lib/server/route";
 import { GET as healthGET } from "@/app/api/health/route";
 import { GET as commissionsGET } from "@/app/api/commissions/route";
@@ -132,8 +133,11 @@ describe("an exhausted pool", () => {
     expect(((await res.json()) as { error: { code: string } }).error.code).toBe("busy");
     // drizzle wraps pooled query failures; the cause is what counts
     expect(errorResponse(Object.assign(new Error("Failed query: select 1"), { cause: poolTimeout })).status).toBe(503);
-    expect(toErrorState(poolTimeout).message).toMatch(/busy.*try again/i);
+    expect(toErrorState(poolTimeout)).toMatchObject({ status: "error", message: expect.stringMatching(/busy.*try again/i) });
     expect(errorResponse(new Error("something else")).status).toBe(500);
+    // lookups that hide "not yours" as 404 let a busy database through as itself
+    expect(await Promise.reject(notFound("That quote")).catch(nullIfNotFound)).toBeNull();
+    await expect(Promise.reject(poolTimeout).catch(nullIfNotFound)).rejects.toBe(poolTimeout);
   });
 
   test("with every connection held, a request gets 503 + Retry-After quickly; once released, requests succeed", async () => {
