@@ -33,6 +33,15 @@ const schema = z.object({
   DRAFT_PHOTO_HOURLY_LIMIT: z.coerce.number().int().positive().default(60),
   /** Request drafts not touched for this many days are removed, with their photos. */
   DRAFT_MAX_AGE_DAYS: z.coerce.number().int().positive().default(30),
+  /** Database pool per app instance: size, how long a request waits for a free connection before it
+   *  is answered 503 (pg's connectionTimeoutMillis), and server-side limits on one statement and on a
+   *  transaction left idle (a stuck request cannot hold a connection for ever). */
+  DB_POOL_MAX: z.coerce.number().int().min(1).max(200).default(10),
+  DB_CONNECT_TIMEOUT_MS: z.coerce.number().int().min(50).max(120_000).default(5000),
+  DB_STATEMENT_TIMEOUT_MS: z.coerce.number().int().min(100).max(3_600_000).default(30_000),
+  DB_IDLE_IN_TRANSACTION_TIMEOUT_MS: z.coerce.number().int().min(100).max(3_600_000).default(15_000),
+  /** A query on the shared pool while the same request holds an open transaction throws (default: on in tests). */
+  DB_TX_GUARD: z.enum(["on", "off"]).optional(),
   /** Set by the scripts when the database is the local demo one; demo accounts exist only then. */
   DARNWELL_DEMO: z.enum(["0", "1"]).default("0"),
 });

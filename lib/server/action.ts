@@ -5,6 +5,7 @@ import { unstable_rethrow } from "next/navigation";
 import { z } from "zod";
 import { requireActor, type Actor } from "./authz";
 import type { ActionState } from "@/lib/action-state";
+import { busyError } from "./db-busy";
 import { AppError, fieldErrorsOf } from "./errors";
 
 export type { ActionState };
@@ -17,6 +18,7 @@ function echo(form: FormData | Record<string, unknown>): Record<string, string> 
 }
 
 export function toErrorState(err: unknown, values?: Record<string, string>): ActionState<never> {
+  err = busyError(err) ?? err; // the database is saturated: say so, and that a retry will do
   if (err instanceof AppError) {
     return { status: "error", message: err.message, fieldErrors: err.fieldErrors, values };
   }

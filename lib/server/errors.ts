@@ -35,3 +35,9 @@ export function fieldErrorsOf(error: z.ZodError): FieldErrors {
 export function validationError(error: z.ZodError): AppError {
   return new AppError(422, "invalid_input", "Some fields need attention.", fieldErrorsOf(error));
 }
+
+/** For `.catch(nullIfNotFound)`: a 404 becomes null; anything else (a busy database, a bug) is rethrown. */
+export function nullIfNotFound(err: unknown): null {
+  if (err instanceof AppError && err.status === 404) return null;
+  throw err;
+}

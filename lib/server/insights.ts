@@ -187,7 +187,7 @@ export async function decideProposal(actor: Actor, studioId: string, proposalId:
       .set({ status: decision, decidedAt: new Date(), decidedBy: actor.userId })
       .where(eq(rateProposals.id, p.id))
       .returning();
-    if (decision === "accepted") await updateStudioSettings(actor, studioId, { rates: p.rates as unknown as LabourRates });
+    if (decision === "accepted") await updateStudioSettings(actor, studioId, { rates: p.rates as unknown as LabourRates }, tx);
     return updated;
   });
 }

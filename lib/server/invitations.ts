@@ -25,20 +25,23 @@ export async function inviteMember(actor: Actor, studioId: string, email: string
     if (member) throw conflict(`${normalised} is already a member of ${studio.name}.`);
   }
   const token = randomBytes(32).toString("base64url");
-  const [row] = await db
-    .insert(studioInvitations)
-    .values({
-      studioId,
-      email: normalised,
-      role: "assistant",
-      tokenHash: hashToken(token),
-      invitedBy: actor.userId,
-      expiresAt: new Date(Date.now() + INVITATION_DAYS * 86_400_000),
-    })
-    .returning({ id: studioInvitations.id });
   const url = `${env.BETTER_AUTH_URL}/invitations/${token}`;
-  await enqueueMail({ to: normalised, studioId, ...invitationMessage(studio.name, actor.name, url) });
-  return { id: row.id, email: normalised };
+  // The invitation and its mail are written together: neither exists without the other.
+  return db.transaction(async (tx) => {
+    const [row] = await tx
+      .insert(studioInvitations)
+      .values({
+        studioId,
+        email: normalised,
+        role: "assistant",
+        tokenHash: hashToken(token),
+        invitedBy: actor.userId,
+        expiresAt: new Date(Date.now() + INVITATION_DAYS * 86_400_000),
+      })
+      .returning({ id: studioInvitations.id });
+    await enqueueMail({ to: normalised, studioId, ...invitationMessage(studio.name, actor.name, url) }, tx);
+    return { id: row.id, email: normalised };
+  });
 }
 
 export type InvitationLookup =

@@ -3,7 +3,7 @@ import "server-only";
 // worker with retries and backoff, so a mail server that is down loses nothing. Rows are leased
 // with FOR UPDATE SKIP LOCKED, so any number of app instances can run the worker.
 import { and, eq, sql } from "drizzle-orm";
-import { db, type Tx } from "@/db";
+import { db, type Executor } from "@/db";
 import { outboxMessages, type OutboxMessage } from "@/db/schema";
 import { env } from "@/lib/env";
 import { sendMail, type MailMessage } from "./mail";
@@ -23,10 +23,16 @@ export interface QueuedMail {
   studioId?: string | null;
   /** the same key is queued only once */
   dedupeKey?: string;
-  attachments?: { filename: string; contentType: string; base64: string }[];
+  attachments?: MailAttachment[];
 }
 
-export async function enqueueMail(mail: QueuedMail, tx: Tx | typeof db = db): Promise<void> {
+/**
+ * Bytes queued with the mail, or a document rendered by the worker when it sends (`render` names it,
+ * see mail-attachments.ts): PDFs are never rendered inside the transaction that queues their mail.
+ */
+export type MailAttachment = { filename: string; contentType: string } & ({ base64: string } | { render: `${"quote" | "document"}:${string}` });
+
+export async function enqueueMail(mail: QueuedMail, tx: Executor = db): Promise<void> {
   await tx
     .insert(outboxMessages)
     .values({
@@ -42,7 +48,13 @@ export async function enqueueMail(mail: QueuedMail, tx: Tx | typeof db = db): Pr
     .onConflictDoNothing({ target: outboxMessages.dedupeKey });
 }
 
-function toMailMessage(row: OutboxMessage): MailMessage {
+async function toMailMessage(row: OutboxMessage): Promise<MailMessage> {
+  const { renderMailAttachment } = await import("./mail-attachments");
+  const attachments: NonNullable<MailMessage["attachments"]> = [];
+  for (const a of row.attachments) {
+    if (a.base64) attachments.push({ filename: a.filename, contentType: a.contentType, content: Buffer.from(a.base64, "base64") });
+    else if (a.render) attachments.push({ filename: a.filename, contentType: a.contentType, content: await renderMailAttachment(a.render) });
+  }
   return {
     to: row.to,
     subject: row.subject,
@@ -50,9 +62,7 @@ function toMailMessage(row: OutboxMessage): MailMessage {
     text: row.text,
     replyTo: row.replyTo ?? undefined,
     messageId: `<${row.id}@darnwell.outbox>`,
-    attachments: row.attachments
-      .filter((a) => a.base64)
-      .map((a) => ({ filename: a.filename, contentType: a.contentType, content: Buffer.from(a.base64, "base64") })),
+    attachments,
   };
 }
 
@@ -77,7 +87,7 @@ export async function processOutbox(
     const [row] = await db.select().from(outboxMessages).where(eq(outboxMessages.id, id));
     if (!row || row.status !== "pending") continue;
     try {
-      await send(toMailMessage(row));
+      await send(await toMailMessage(row));
       await db
         .update(outboxMessages)
         .set({ status: "sent", sentAt: new Date(), attempts: row.attempts + 1, lastError: null })

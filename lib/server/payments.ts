@@ -8,7 +8,7 @@ import { and, asc, desc, eq, gte, inArray, lt, sql } from "drizzle-orm";
 import { createElement } from "react";
 import Stripe from "stripe";
 import type { z } from "zod";
-import { db, type Tx } from "@/db";
+import { db, type Executor, type Tx } from "@/db";
 import {
   commissionEvents,
   commissions,
@@ -36,7 +36,7 @@ import { eventEnvelopeSchema, HANDLED_EVENT_TYPES, handledEventSchema } from "@/
 import { documentMessage } from "@/templates/email/money";
 import { InvoiceDocument } from "@/templates/pdf/invoice";
 import { assertCan, can, type Actor } from "./authz";
-import { AppError, conflict, notFound } from "./errors";
+import { AppError, conflict, notFound, nullIfNotFound } from "./errors";
 import { enqueueMail } from "./outbox";
 import { renderPdf } from "./pdf";
 import { getCommissionFor, getCommissionMailParties } from "./queries/commissions";
@@ -206,7 +206,7 @@ export async function allocateDocumentNumber(tx: Tx, studioId: string, kind: "in
   return row.next - 1;
 }
 
-async function paidSoFar(tx: Tx | typeof db, commissionId: string) {
+async function paidSoFar(tx: Executor, commissionId: string) {
   const rows = await tx
     .select({ kind: payments.kind, amount: payments.amountMinor, refunded: payments.refundedMinor })
     .from(payments)
@@ -313,7 +313,6 @@ export async function renderDocumentPdf(doc: Invoice): Promise<Buffer> {
 async function enqueueDocumentMail(tx: Tx, doc: Invoice) {
   const k = doc.content as unknown as DocumentContent;
   const row = await getCommissionMailParties(tx, doc.commissionId);
-  const pdf = await renderDocumentPdf(doc);
   const mail = documentMessage({
     kind: doc.kind,
     number: k.number,
@@ -326,7 +325,8 @@ async function enqueueDocumentMail(tx: Tx, doc: Invoice) {
     accentHex: row.brandHex,
   });
   await enqueueMail(
-    { to: row.clientEmail, ...mail, studioId: doc.studioId, dedupeKey: `document-${doc.id}`, attachments: [{ filename: `${k.number}.pdf`, contentType: "application/pdf", base64: pdf.toString("base64") }] },
+    // The PDF is rendered by the outbox worker when it sends, never inside this transaction.
+    { to: row.clientEmail, ...mail, studioId: doc.studioId, dedupeKey: `document-${doc.id}`, attachments: [{ filename: `${k.number}.pdf`, contentType: "application/pdf", render: `document:${doc.id}` }] },
     tx,
   );
 }
@@ -335,9 +335,7 @@ async function enqueueDocumentMail(tx: Tx, doc: Invoice) {
 export async function getDocumentFor(actor: Actor, id: string): Promise<Invoice> {
   const [doc] = await db.select().from(invoices).where(eq(invoices.id, id));
   if (!doc) throw notFound("That document");
-  await getCommissionFor(actor, doc.commissionId).catch(() => {
-    throw notFound("That document");
-  });
+  if (!(await getCommissionFor(actor, doc.commissionId).catch(nullIfNotFound))) throw notFound("That document");
   return doc;
 }
 

@@ -2,7 +2,7 @@ import "server-only";
 // Production: pieces per commission, stage moves with their audit rows, timers and manual time
 // entries (one running timer per person, overlaps refused), and labour history on close.
 import { and, asc, eq, inArray, isNull, ne, or, sql } from "drizzle-orm";
-import { db, type Tx } from "@/db";
+import { db, type Executor, type Tx } from "@/db";
 import {
   commissions,
   labourHistory,
@@ -72,7 +72,7 @@ export async function createPieces(actor: Actor, commissionId: string, layoutId:
     } catch (err) {
       throw new AppError(422, "invalid_input", (err as Error).message, { layout: [(err as Error).message] });
     }
-    const settings = await loadStudioSettings(c.studioId);
+    const settings = await loadStudioSettings(c.studioId, tx);
     const rows = layout.pieces.map((p, i) => {
       const { estimate, dryingHours } = estimatePiece(p.features, settings.rates);
       return {
@@ -103,7 +103,7 @@ export async function startProduction(actor: Actor, commissionId: string, layout
   });
 }
 
-async function loadPieceFor(actor: Actor, pieceId: string, tx: Tx | typeof db = db, lock = false) {
+async function loadPieceFor(actor: Actor, pieceId: string, tx: Executor = db, lock = false) {
   const q = tx
     .select({ piece: pieces, commissionState: commissions.state, commissionId: commissions.id })
     .from(pieces)
@@ -146,7 +146,7 @@ export async function markCommissionReady(actor: Actor, commissionId: string) {
 // ——— logged minutes ———
 
 /** Counted minutes per piece and stage: stopped, not deleted, not awaiting confirmation. */
-export async function loggedMinutesByPiece(pieceIds: string[], tx: Tx | typeof db = db): Promise<Map<string, Record<string, number>>> {
+export async function loggedMinutesByPiece(pieceIds: string[], tx: Executor = db): Promise<Map<string, Record<string, number>>> {
   const out = new Map<string, Record<string, number>>();
   if (pieceIds.length === 0) return out;
   const rows = await tx
@@ -307,7 +307,7 @@ export async function getCommissionPieces(actor: Actor, commissionId: string) {
 
 // ——— timers ———
 
-async function studioTimeZone(studioId: string, tx: Tx | typeof db = db): Promise<string> {
+async function studioTimeZone(studioId: string, tx: Executor = db): Promise<string> {
   const [s] = await tx.select({ tz: studios.timeZone }).from(studios).where(eq(studios.id, studioId));
   return s?.tz ?? "Europe/London";
 }
@@ -579,7 +579,7 @@ export async function updatePieceFeatures(actor: Actor, pieceId: string, raw: un
     if ((TERMINAL_STATES as readonly string[]).includes(commissionState)) {
       throw conflict("This commission has finished; its pieces' features are kept as they were.");
     }
-    const settings = await loadStudioSettings(piece.studioId);
+    const settings = await loadStudioSettings(piece.studioId, tx);
     // A drying time set for this piece at set-up is kept; the form does not show it.
     const kept = typeof piece.features.dryingHours === "number" ? { dryingHours: piece.features.dryingHours } : {};
     const features: PieceFeatures = { ...kept, ...input.features, label: piece.name };

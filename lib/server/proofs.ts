@@ -4,7 +4,7 @@ import "server-only";
 // end with one, and an answer to a proof that a newer one has replaced is refused.
 import { createHash } from "node:crypto";
 import { and, asc, desc, eq, max, ne } from "drizzle-orm";
-import { db, type Tx } from "@/db";
+import { db, type Executor, type Tx } from "@/db";
 import { commissions, designs, designVersions, proofComments, proofs, quoteVersions, studios, user, type DesignChartEntry } from "@/db/schema";
 import { measureText, parseChart, type Chart, type FontId } from "@/lib/core/chart";
 import { diffProofCharts, type ChartDiff } from "@/lib/core/proofs";
@@ -13,7 +13,7 @@ import type { RequestChangesInput } from "@/lib/schemas/proofs";
 import { proofAnsweredMessage, proofReadyMessage } from "@/templates/email/journey";
 import { assertCan, memberRole, type Actor } from "./authz";
 import { renderPreviewPng } from "./chart-png";
-import { AppError, conflict, notFound } from "./errors";
+import { AppError, conflict, notFound, nullIfNotFound } from "./errors";
 import { enqueueMail } from "./outbox";
 import { getCommissionFor, getCommissionMailParties } from "./queries/commissions";
 import { moveCommission } from "./workflow";
@@ -29,21 +29,44 @@ async function lockCommission(tx: Tx, id: string) {
 }
 
 /** The design a proof is sent from: the commission's design (newest if several) and its head version. */
-async function headVersionFor(tx: Tx, commissionId: string) {
-  const [d] = await tx.select().from(designs).where(eq(designs.commissionId, commissionId)).orderBy(desc(designs.updatedAt)).limit(1);
+async function headVersionFor(q: Executor, commissionId: string) {
+  const [d] = await q.select().from(designs).where(eq(designs.commissionId, commissionId)).orderBy(desc(designs.updatedAt)).limit(1);
   if (!d?.headVersionId) return null;
-  const [v] = await tx.select().from(designVersions).where(eq(designVersions.id, d.headVersionId));
+  const [v] = await q.select().from(designVersions).where(eq(designVersions.id, d.headVersionId));
   return v ? { design: d, version: v } : null;
+}
+
+const NO_DESIGN = "This commission has no saved design yet; save its charts before sending a proof.";
+
+/** PNG previews of a version's first charts for the proof mail (e-mail clients do not show SVG). */
+async function previewPictures(charts: DesignChartEntry[]) {
+  const pictures: { name: string; base64: string }[] = [];
+  for (const [i, entry] of charts.slice(0, 3).entries()) {
+    try {
+      // At most 560 px wide, on white.
+      const png = await renderPreviewPng(parseChart(entry.chart), { title: entry.label, maxWidthPx: 560 });
+      pictures.push({ name: `${i + 1}-${entry.area}.png`, base64: png.toString("base64") });
+    } catch (err) {
+      console.error("proof preview:", (err as Error).message);
+    }
+  }
+  return pictures;
 }
 
 /** Owner (the workflow allows only the owner to send a proof): freezes the design's head version as the next proof. */
 export async function sendProof(actor: Actor, commissionId: string, note: string) {
   const c = await getCommissionFor(actor, commissionId);
   assertCan(actor, "commission.work", c.studioId);
+  // The pictures are drawn before the transaction (versions never change); the transaction checks
+  // that the head is still the version drawn.
+  const drawn = await headVersionFor(db, c.id);
+  if (!drawn) throw new AppError(422, "no_design", NO_DESIGN);
+  const pictures = await previewPictures(drawn.version.charts);
   const out = await db.transaction(async (tx) => {
     await lockCommission(tx, c.id);
     const head = await headVersionFor(tx, c.id);
-    if (!head) throw new AppError(422, "no_design", "This commission has no saved design yet; save its charts before sending a proof.");
+    if (!head) throw new AppError(422, "no_design", NO_DESIGN);
+    if (head.version.id !== drawn.version.id) throw conflict("The design was saved again while the proof was being sent; please send it again.");
     const [q] = await tx
       .select({ id: quoteVersions.id, number: quoteVersions.number })
       .from(quoteVersions)
@@ -68,17 +91,7 @@ export async function sendProof(actor: Actor, commissionId: string, note: string
       .returning();
     const who = await getCommissionMailParties(tx, c.id);
     const [s] = await tx.select().from(studios).where(eq(studios.id, c.studioId));
-    const charts = head.version.charts;
-    const attachments: { filename: string; contentType: string; base64: string }[] = [];
-    for (const [i, entry] of charts.slice(0, 3).entries()) {
-      try {
-        // E-mail clients do not show SVG; a PNG of the preview at most 560 px wide, on white.
-        const png = await renderPreviewPng(parseChart(entry.chart), { title: entry.label, maxWidthPx: 560 });
-        attachments.push({ filename: `proof-${number}-${i + 1}-${entry.area}.png`, contentType: "image/png", base64: png.toString("base64") });
-      } catch (err) {
-        console.error("proof preview:", (err as Error).message);
-      }
-    }
+    const attachments = pictures.map((pic) => ({ filename: `proof-${number}-${pic.name}`, contentType: "image/png", base64: pic.base64 }));
     await enqueueMail(
       {
         to: who.clientEmail,
@@ -98,7 +111,7 @@ export async function sendProof(actor: Actor, commissionId: string, note: string
 async function proofRowFor(actor: Actor, proofId: string) {
   const [p] = await db.select().from(proofs).where(eq(proofs.id, proofId));
   if (!p) throw notFound("That proof");
-  const c = await getCommissionFor(actor, p.commissionId).catch(() => null);
+  const c = await getCommissionFor(actor, p.commissionId).catch(nullIfNotFound);
   if (!c) throw notFound("That proof");
   return { p, c };
 }
@@ -281,7 +294,7 @@ export async function getProofView(actor: Actor, commissionId: string, proofId: 
 export async function getProofSource(actor: Actor, commissionId: string) {
   const c = await getCommissionFor(actor, commissionId);
   assertCan(actor, "studio.view", c.studioId);
-  const head = await db.transaction((tx) => headVersionFor(tx, c.id));
+  const head = await headVersionFor(db, c.id);
   if (!head) return null;
   return { designId: head.design.id, title: head.design.title, versionNumber: head.version.number, lockedVersionId: head.design.lockedVersionId, charts: head.version.charts.length };
 }

@@ -3,7 +3,7 @@ import "server-only";
 // it (then it never changes), and the client accepts it or asks for changes in the portal.
 import { and, asc, desc, eq, inArray, ne } from "drizzle-orm";
 import { createElement } from "react";
-import { db, type Tx } from "@/db";
+import { db, type Executor, type Tx } from "@/db";
 import { commissions, quoteVersions, studioClients, studios, yarnLots, yarnReservations, yarns, type QuoteVersion } from "@/db/schema";
 import { parseChart } from "@/lib/core/chart/format";
 import { featuresFromChart } from "@/lib/core/labour/chart-features";
@@ -18,7 +18,7 @@ import type { StudioSettings } from "@/lib/schemas/settings";
 import { QuoteDocument } from "@/templates/pdf/quote";
 import { quoteSentMessage } from "@/templates/email/money";
 import { assertCan, can, type Actor } from "./authz";
-import { AppError, conflict, notFound } from "./errors";
+import { AppError, conflict, notFound, nullIfNotFound } from "./errors";
 import { enqueueMail } from "./outbox";
 import { renderPdf } from "./pdf";
 import { getCommissionFor, getCommissionMailParties } from "./queries/commissions";
@@ -269,10 +269,10 @@ export async function renderQuotePdf(v: QuoteVersion): Promise<Buffer> {
 }
 
 /** A quote version the actor may see: the studio sees all, the client only sent ones. */
-export async function getQuoteFor(actor: Actor, quoteId: string): Promise<QuoteVersion> {
-  const [v] = await db.select().from(quoteVersions).where(eq(quoteVersions.id, quoteId));
+export async function getQuoteFor(actor: Actor, quoteId: string, q: Executor = db): Promise<QuoteVersion> {
+  const [v] = await q.select().from(quoteVersions).where(eq(quoteVersions.id, quoteId));
   if (!v) throw notFound("That quote");
-  const c = await getCommissionFor(actor, v.commissionId).catch(() => null);
+  const c = await getCommissionFor(actor, v.commissionId, q).catch(nullIfNotFound);
   if (!c) throw notFound("That quote");
   if (!can(actor, "studio.view", c.studioId) && v.status === "draft") throw notFound("That quote");
   return v;
@@ -320,7 +320,6 @@ export async function sendQuote(actor: Actor, quoteId: string): Promise<QuoteVer
 async function enqueueQuoteMail(tx: Tx, v: QuoteVersion) {
   const q = quoteOf(v);
   const row = await getCommissionMailParties(tx, v.commissionId);
-  const pdf = await renderQuotePdf(v);
   const mail = quoteSentMessage({
     clientName: row.clientName,
     studioName: row.studioName,
@@ -338,7 +337,8 @@ async function enqueueQuoteMail(tx: Tx, v: QuoteVersion) {
       ...mail,
       studioId: v.studioId,
       dedupeKey: `quote-sent-${v.id}`,
-      attachments: [{ filename: `quote-${row.number}-${v.number}.pdf`, contentType: "application/pdf", base64: pdf.toString("base64") }],
+      // The PDF is rendered by the outbox worker when it sends, never inside this transaction.
+      attachments: [{ filename: `quote-${row.number}-${v.number}.pdf`, contentType: "application/pdf", render: `quote:${v.id}` }],
     },
     tx,
   );
@@ -355,7 +355,7 @@ function refuseUnlessOpen(v: QuoteVersion, latestId: string) {
 }
 
 async function lockForAnswer(tx: Tx, actor: Actor, quoteId: string) {
-  const v0 = await getQuoteFor(actor, quoteId);
+  const v0 = await getQuoteFor(actor, quoteId, tx);
   const [c] = await tx.select().from(commissions).where(eq(commissions.id, v0.commissionId)).for("update");
   if (!actor.clientOf.some((x) => x.clientId === c.clientId)) throw notFound("That quote");
   const [v] = await tx.select().from(quoteVersions).where(eq(quoteVersions.id, quoteId)).for("update");

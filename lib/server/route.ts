@@ -3,6 +3,7 @@ import "server-only";
 // Authorisation of the resource itself happens in the query the handler calls.
 import { z } from "zod";
 import { requireActor, type Actor } from "./authz";
+import { BUSY_RETRY_AFTER_SECONDS, busyError } from "./db-busy";
 import { AppError, validationError } from "./errors";
 
 type Ctx<P, B, Q> = { req: Request; actor: Actor; params: P; body: B; query: Q };
@@ -14,6 +15,8 @@ interface RouteSpec<P extends z.ZodType, B extends z.ZodType, Q extends z.ZodTyp
 }
 
 export function errorResponse(err: unknown): Response {
+  const busy = busyError(err); // the pool is exhausted: fail fast, the client retries
+  if (busy) return Response.json({ error: { code: busy.code, message: busy.message } }, { status: 503, headers: { "retry-after": String(BUSY_RETRY_AFTER_SECONDS) } });
   if (err instanceof AppError) {
     return Response.json(
       { error: { code: err.code, message: err.message, fieldErrors: err.fieldErrors } },

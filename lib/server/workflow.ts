@@ -2,7 +2,7 @@ import "server-only";
 // Commission state changes: the pure machine (lib/core/workflow) decides, this writes the change
 // and its audit row in one transaction, with the commission row locked so racing moves serialise.
 import { and, desc, eq, inArray } from "drizzle-orm";
-import { db, type Tx } from "@/db";
+import { db, type Executor, type Tx } from "@/db";
 import { commissionEvents, commissions, payments, pieces, quoteVersions } from "@/db/schema";
 import { canMove, type Move, type MoveContext, type Role } from "@/lib/core/workflow";
 import type { CommissionState } from "@/lib/core/workflow/states";
@@ -28,8 +28,8 @@ export function roleOn(mover: Mover, c: { studioId: string; clientId: string }):
   return mover.clientOf.some((x) => x.clientId === c.clientId) ? "client" : null;
 }
 
-/** Facts the guards need, read inside the same transaction. */
-export async function moveContextFor(tx: Tx, commissionId: string, pausedFrom: CommissionState | null): Promise<MoveContext> {
+/** Facts the guards need, read inside the same transaction (or from the pool, for display). */
+export async function moveContextFor(tx: Executor, commissionId: string, pausedFrom: CommissionState | null): Promise<MoveContext> {
   const [latestQuote] = await tx
     .select({ status: quoteVersions.status })
     .from(quoteVersions)

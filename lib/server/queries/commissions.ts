@@ -1,6 +1,6 @@
 import "server-only";
 import { and, asc, desc, eq, inArray, or, sql, type SQL } from "drizzle-orm";
-import { db, type Tx } from "@/db";
+import { db, type Executor } from "@/db";
 import { commissionEvents, commissions, messageReads, messages, studioClients, studios, user } from "@/db/schema";
 import { assertCan, type Actor } from "../authz";
 import { notFound } from "../errors";
@@ -55,8 +55,8 @@ export async function listCommissionsFor(actor: Actor, opts: { studioId?: string
 }
 
 /** One commission the actor may see, or a 404 (never a hint that it exists). */
-export async function getCommissionFor(actor: Actor, id: string) {
-  const [row] = await db
+export async function getCommissionFor(actor: Actor, id: string, q: Executor = db) {
+  const [row] = await q
     .select({ ...listColumns, brief: commissions.brief, createdAt: commissions.createdAt })
     .from(commissions)
     .innerJoin(studios, eq(studios.id, commissions.studioId))
@@ -101,7 +101,7 @@ export async function setCommissionPrice(actor: Actor, id: string, priceMinor: n
  * Who a commission's mail goes to and from: the client's address and name, the studio's name,
  * colour and contact address. No permission check: for server code that has already checked.
  */
-export async function getCommissionMailParties(tx: Tx | typeof db, commissionId: string) {
+export async function getCommissionMailParties(tx: Executor, commissionId: string) {
   const [row] = await tx
     .select({
       title: commissions.title,

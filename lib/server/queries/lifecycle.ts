@@ -32,7 +32,7 @@ export async function getAvailableMoves(actor: Actor, commissionId: string): Pro
   const [row] = await db.query.commissions.findMany({ where: (t, { eq: e }) => e(t.id, c.id), columns: { pausedFrom: true, clientId: true, studioId: true }, limit: 1 });
   const role = roleOn(actor, row);
   if (!role) return [];
-  const ctx = await db.transaction((tx) => moveContextFor(tx, c.id, row.pausedFrom));
+  const ctx = await moveContextFor(db, c.id, row.pausedFrom);
   return movesFrom(c.state, role, ctx).filter((m) => !OWN_PLACE.has(m.move));
 }
 

@@ -3,7 +3,7 @@ import { and, asc, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { studios, uploads, type Upload } from "@/db/schema";
 import { memberRole, type Actor } from "../authz";
-import { notFound } from "../errors";
+import { notFound, nullIfNotFound } from "../errors";
 import { draftOwnsUpload } from "../requests";
 import { getCommissionFor } from "./commissions";
 
@@ -28,7 +28,7 @@ export async function getUploadFor(
     throw notFound("That photo");
   }
   if (!actor) throw notFound("That photo");
-  const c = await getCommissionFor(actor, u.commissionId).catch(() => null);
+  const c = await getCommissionFor(actor, u.commissionId).catch(nullIfNotFound);
   if (!c) throw notFound("That photo");
   if (!memberRole(actor, c.studioId) && !u.sharedWithClient) throw notFound("That photo");
   return u;
