@@ -55,10 +55,11 @@ function upload(totalBytes: number): Promise<{ status: string; sentMb: number }>
       resolve({ status, sentMb: Math.round(sent / 1048576) });
     };
     req.on("response", (res) => {
+      done(String(res.statusCode));
       res.resume();
-      res.on("end", () => done(String(res.statusCode)));
-      req.destroy();
+      res.on("end", () => req.destroy());
     });
+    req.on("close", () => done("closed without an answer"));
     req.on("error", (err) => done(`socket: ${(err as NodeJS.ErrnoException).code ?? err.message}`));
     req.write(`--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="huge.jpg"\r\nContent-Type: image/jpeg\r\n\r\n`);
     const chunk = Buffer.alloc(1024 * 1024, 0x41);
