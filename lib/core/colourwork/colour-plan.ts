@@ -96,7 +96,7 @@ export function buildColourPlan(chart: Chart, o: ResolvedOptions, cache: Routing
   const routing = (c: number) => {
     let r = cache.get(c);
     if (!r) {
-      r = routeChartColour(chart, c, g);
+      r = routeChartColour(chart, c, g, { inTheRound: o.routeInTheRound });
       cache.set(c, r);
     }
     return r;
