@@ -269,8 +269,6 @@ describe("planRoundPairs: optimal and within the rules", () => {
         expect(Math.abs(minutes(t.knitEnds + p.darningEnds, p.carryCm, p.catches) - plan.plannedMinutes)).toBeLessThanOrEqual(0.1);
         // staggering only ever adds catches
         expect(t.catches).toBeGreaterThanOrEqual(p.catches);
-        // rounds of one length: the estimate never has fewer strands than the real route
-        if (new Set(input.rounds.map((r) => r.length)).size === 1) expect(t.darningEnds).toBeLessThanOrEqual(p.darningEnds);
       }),
       { numRuns: 100 },
     );
