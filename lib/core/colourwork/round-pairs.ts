@@ -204,6 +204,8 @@ function parse<S extends z.ZodType>(schema: S, value: unknown, prefix: string): 
 export interface ResolvedRoundPiece {
   rounds: Uint8Array[];
   keys: string[];
+  /** names to show in reasons (the key when the palette gives none) */
+  names: string[];
   hex: string[];
   gauge: Gauge;
   /** colour index → forced to be darned */
@@ -258,6 +260,7 @@ export function resolveRoundPiece(input: unknown, options: unknown = {}): Resolv
   return {
     rounds,
     keys,
+    names: piece.palette.map((p) => p.name || p.key),
     hex: piece.palette.map((p) => p.hex),
     gauge: piece.gauge,
     forced,
@@ -276,7 +279,7 @@ export function resolveRoundPiece(input: unknown, options: unknown = {}): Resolv
 export type HeldPair = readonly number[];
 
 /** Work of one round under one held pair, before the links to the round below. */
-interface RoundWork {
+export interface RoundWork {
   darned: number;
   catches: number;
   /** knitted colour (palette index) of every stitch after underlay */
@@ -888,8 +891,9 @@ function describeReason(
   const key = (c: number) => piece.keys[c];
   const parts: string[] = [];
   if (piece.pinned[r]) parts.push("pinned by the maker");
-  if (q && joined.length > 0) parts.push(`pair changes here: ${joined.map(key).join(" and ")} appear${joined.length > 1 ? "" : "s"}`);
-  else if (q && cut.length > 0) parts.push(`pair changes here: ${cut.map(key).join(" and ")} cut`);
+  const name = (c: number) => piece.names[c];
+  if (q && joined.length > 0) parts.push(`pair changes here: ${joined.map(name).join(" and ")} appear${joined.length > 1 ? "" : "s"}`);
+  else if (q && cut.length > 0) parts.push(`pair changes here: ${cut.map(name).join(" and ")} cut`);
   const colours = costs.present[r].filter((x) => x).length;
   const forcedHere = costs.present[r].some((x, c) => x && piece.forced[c]);
   if (darned.length === 0) {

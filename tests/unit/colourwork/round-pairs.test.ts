@@ -91,6 +91,12 @@ describe("planRoundPairs: worked by hand", () => {
     expect(none.totals.minutes).toBe(0);
   });
 
+  test("reasons name colours by their palette names when given", () => {
+    const named = piece(rounds, ["A", "B", "C"]);
+    named.palette = named.palette.map((p, i) => ({ ...p, name: ["cream", "navy", "blue"][i] }));
+    expect(planRoundPairs(named).rounds[2].reason).toBe("pair changes here: blue appears; only two colours: knitted, nothing darned");
+  });
+
   test("palette indices work as colour names", () => {
     const plan = planRoundPairs({ rounds: [[0, 1, 0, 1]], palette: palette(["A", "B"]), gauge: HALF_CM_GAUGE }, { pins: [{ fromRound: 1, toRound: 1, pair: [1, 0] }] });
     expect(plan.rounds[0].pair).toEqual(["A", "B"]);
@@ -213,6 +219,24 @@ function checkPlan(plan: RoundPairsPlan, input: { rounds: string[][] }, options:
 }
 
 describe("planRoundPairs: optimal and within the rules", () => {
+  test("pairs sharing a round's pattern of knitted stitches are priced as if each were worked out alone", () => {
+    fc.assert(
+      fc.property(withExtras, ({ input, options }) => {
+        const costs = new RoundPairCosts(resolveRoundPiece(input, options));
+        const rates = costs.piece.rates;
+        const h = 10 / HALF_CM_GAUGE.rowsPer10cm;
+        for (let r = 0; r < input.rounds.length; r++) {
+          for (const p of costs.pairs) {
+            const w = costs.roundWork(r, p);
+            const alone = (w.darned * rates.secondsPerDuplicateStitch + w.catches * rates.secondsPerFloatCatch + w.idle * h * rates.secondsPerCarryCm) / 60;
+            expect(costs.roundMinutes(r, p)).toBeCloseTo(alone, 9);
+          }
+        }
+      }),
+      { numRuns: 100 },
+    );
+  });
+
   test("the dynamic programme finds the same least minutes as trying every sequence of pairs", () => {
     fc.assert(
       fc.property(withExtras, ({ input, options }) => {
