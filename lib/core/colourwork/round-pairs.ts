@@ -143,6 +143,8 @@ const lengthLimit = () => positive().refine((v) => v <= MAX_LENGTH_LIMIT_CM, { e
 
 export const MAX_ROUNDS = 2000;
 export const MAX_ROUND_STITCHES = 1000;
+/** Stitches in one piece: a pullover body is about 30,000; this bounds the work of one plan. */
+export const MAX_PIECE_STITCHES = 250_000;
 
 export const roundPairsInputSchema = z
   .object({
@@ -221,6 +223,8 @@ export interface ResolvedRoundPiece {
 export function resolveRoundPiece(input: unknown, options: unknown = {}): ResolvedRoundPiece {
   const piece = parse(roundPairsInputSchema, input, "piece");
   const o = parse(roundPairsOptionsSchema, options, "options");
+  const total = piece.rounds.reduce((sum, round) => sum + round.length, 0);
+  if (total > MAX_PIECE_STITCHES) throw new ColourworkError("piece.rounds", `the piece has ${total} stitches; at most ${MAX_PIECE_STITCHES} are planned at once`);
   const keys = piece.palette.map((p) => p.key);
   const dupKey = keys.findIndex((k, i) => keys.indexOf(k) !== i);
   if (dupKey >= 0) throw new ColourworkError(`piece.palette[${dupKey}].key`, `colour '${keys[dupKey]}' is named twice`);

@@ -97,6 +97,14 @@ describe("planRoundPairs: worked by hand", () => {
     expect(planRoundPairs(named).rounds[2].reason).toBe("pair changes here: blue appears; only two colours: knitted, nothing darned");
   });
 
+  test("one colour left to knit: it is held alone and everything else is darned over it", () => {
+    const plan = planRoundPairs(piece(["AAAA", "ABBA", "", "BBBB"], ["A", "B"]), { darn: ["B"] });
+    expect(plan.rounds.map((r) => r.pair.join(""))).toEqual(["A", "A", "A", "A"]);
+    expect(plan.rounds.map((r) => r.darned.length)).toEqual([0, 2, 0, 4]);
+    expect(plan.rounds[3].darned.every((d) => d.onto === "A")).toBe(true);
+    expect(plan.totals).toMatchObject({ joins: 1, cuts: 1, darnedStitches: 6 });
+  });
+
   test("palette indices work as colour names", () => {
     const plan = planRoundPairs({ rounds: [[0, 1, 0, 1]], palette: palette(["A", "B"]), gauge: HALF_CM_GAUGE }, { pins: [{ fromRound: 1, toRound: 1, pair: [1, 0] }] });
     expect(plan.rounds[0].pair).toEqual(["A", "B"]);
@@ -113,6 +121,7 @@ describe("planRoundPairs: bad input names the place", () => {
     [piece(["AB"], ["A", "B"]), { darn: ["B"], pins: [{ fromRound: 1, toRound: 1, pair: ["A", "B"] }] }, /'B' is also to be darned/],
     [{ rounds: "x" }, {}, /piece\.rounds/],
     [piece(["AB"], ["A", "B"]), { floatLimitStitches: 0 }, /options\.floatLimitStitches/],
+    [piece(Array.from({ length: 251 }, () => "A".repeat(1000)), ["A", "B"]), {}, /251000 stitches; at most 250000/],
   ])("%#", (input, options, message) => {
     expect(() => planRoundPairs(input, options)).toThrow(ColourworkError);
     expect(() => planRoundPairs(input, options)).toThrow(message);
