@@ -51,6 +51,12 @@ export interface RoundPairsOptions {
   floatLimitCm?: number;
   carryLimitCm?: number;
   rates?: Partial<DarningRates>;
+  /**
+   * Default true: route every darned colour over the whole piece for the totals. False skips it
+   * (for a caller that routes on its own layout): `darning` is empty and the totals keep the
+   * estimated route.
+   */
+  route?: boolean;
 }
 
 export interface DarnedStitch {
@@ -179,6 +185,7 @@ export const roundPairsOptionsSchema = z
       .max(MAX_ROUNDS)
       .optional(),
     inTheRound: z.boolean().optional(),
+    route: z.boolean().optional(),
     floatLimitStitches: z.number().int().min(1).max(400).optional(),
     floatLimitCm: lengthLimit().optional(),
     carryLimitCm: lengthLimit().optional(),
@@ -215,6 +222,8 @@ export interface ResolvedRoundPiece {
   /** per round: the pinned pair (sorted indices), or null */
   pinned: ([number, number] | null)[];
   inTheRound: boolean;
+  /** route the darned colours of the chosen plan for the totals */
+  route: boolean;
   floatLimit: number;
   carryLimitCm: number;
   rates: DarningRates;
@@ -270,6 +279,7 @@ export function resolveRoundPiece(input: unknown, options: unknown = {}): Resolv
     forced,
     pinned,
     inTheRound: o.inTheRound ?? true,
+    route: o.route ?? true,
     floatLimit: getFloatLimitStitches(piece.gauge.stitchesPer10cm, o.floatLimitStitches ?? DEFAULT_FLOAT_LIMIT_STITCHES, o.floatLimitCm ?? DEFAULT_FLOAT_LIMIT_CM),
     carryLimitCm: o.carryLimitCm ?? DEFAULT_CARRY_LIMIT_CM,
     rates,
@@ -816,9 +826,9 @@ function describeRoundPairs(costs: RoundPairCosts, sequence: HeldPair[]): RoundP
   });
   // every yarn still held after the last round is cut
   if (sequence.length > 0) t.cuts += sequence[sequence.length - 1].length;
-  const darning = routeDarnedColours(costs, sequence);
-  const darningEnds = darning.reduce((sum, d) => sum + d.ends, 0);
-  const darningCarry = darning.reduce((sum, d) => sum + d.carryCm, 0);
+  const darning = piece.route ? routeDarnedColours(costs, sequence) : [];
+  const darningEnds = piece.route ? darning.reduce((sum, d) => sum + d.ends, 0) : t.estEnds;
+  const darningCarry = piece.route ? darning.reduce((sum, d) => sum + d.carryCm, 0) : t.estCarry - t.idleCm;
   const knitEnds = t.joins + t.cuts;
   const ends = knitEnds + darningEnds;
   const carryCm = darningCarry + t.idleCm;

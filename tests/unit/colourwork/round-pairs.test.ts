@@ -105,6 +105,13 @@ describe("planRoundPairs: worked by hand", () => {
     expect(plan.totals).toMatchObject({ joins: 1, cuts: 1, darnedStitches: 6 });
   });
 
+  test("route: false skips the whole-piece route; the totals keep the estimate", () => {
+    const plan = planRoundPairs(piece(rounds, ["A", "B", "C"]), { route: false });
+    expect(plan.darning).toEqual([]);
+    expect(plan.totals.darningEnds).toBe(plan.planned.darningEnds);
+    expect(plan.totals.minutes).toBe(plan.plannedMinutes);
+  });
+
   test("palette indices work as colour names", () => {
     const plan = planRoundPairs({ rounds: [[0, 1, 0, 1]], palette: palette(["A", "B"]), gauge: HALF_CM_GAUGE }, { pins: [{ fromRound: 1, toRound: 1, pair: [1, 0] }] });
     expect(plan.rounds[0].pair).toEqual(["A", "B"]);
