@@ -902,10 +902,9 @@ function describeReason(
   cut: number[],
 ): string {
   const { piece } = costs;
-  const key = (c: number) => piece.keys[c];
+  const name = (c: number) => piece.names[c];
   const parts: string[] = [];
   if (piece.pinned[r]) parts.push("pinned by the maker");
-  const name = (c: number) => piece.names[c];
   if (q && joined.length > 0) parts.push(`pair changes here: ${joined.map(name).join(" and ")} appear${joined.length > 1 ? "" : "s"}`);
   else if (q && cut.length > 0) parts.push(`pair changes here: ${cut.map(name).join(" and ")} cut`);
   const colours = costs.present[r].filter((x) => x).length;
@@ -916,9 +915,9 @@ function describeReason(
   } else {
     const byColour = new Map<string, number>();
     for (const d of darned) byColour.set(d.colour, (byColour.get(d.colour) ?? 0) + 1);
-    const list = [...byColour].map(([k, v]) => `${v} ${k}`).join(", ");
+    const list = [...byColour].map(([k, v]) => `${v} ${piece.names[piece.keys.indexOf(k)]}`).join(", ");
     if (forcedHere && [...byColour.keys()].every((k) => piece.forced[piece.keys.indexOf(k)])) parts.push(`darned as the maker asked: ${list}`);
-    else if (colours > 2 && !piece.pinned[r]) parts.push(`${colours} colours: ${p.map(key).join(" and ")} knitted, ${list} darned (least work)`);
+    else if (colours > 2 && !piece.pinned[r]) parts.push(`${colours} colours: ${p.map(name).join(" and ")} knitted, ${list} darned (least work)`);
     else parts.push(`${list} darned`);
   }
   return parts.join("; ");
