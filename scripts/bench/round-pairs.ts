@@ -1,6 +1,11 @@
 // Times the round-by-round pair planner on pieces of garment size: a mitten hand (64 stitches ×
 // 70 rounds, 4 colours), a yoke (240 → 96 stitches over 60 rounds, 6 colours) and a hat (112 × 60,
 // 16 colours: the largest state space). Prints milliseconds and the plan's figures; no assertions.
+// "planned" minutes use the estimated route (what the planner minimises, comparable with the single
+// pair); "routed" minutes use the real route of the chosen plan and staggered catches.
+import { readFileSync } from "node:fs";
+import { parseChart } from "@/lib/core/chart/format";
+import { planColours } from "@/lib/core/colourwork/colour-plan";
 import { planRoundPairs } from "@/lib/core/colourwork/round-pairs";
 
 const HEXES = ["#F2EAD3", "#1F2A44", "#B3282D", "#D9A441", "#2E6B3F", "#7A4E9C", "#E07B39", "#4FA3C7", "#222222", "#AAAAAA", "#F5C6D6", "#5B3A29", "#C9D66B", "#0E4D64", "#FFFFFF", "#8C1C13"];
@@ -35,6 +40,28 @@ for (const p of pieces) {
   const changes = plan.rounds.filter((r) => r.joined.length > 0).length;
   console.log(
     `${p.name}: ${ms.toFixed(0)} ms; ${plan.totals.darnedStitches} darned, ${changes} rounds where the pair changes, ` +
-      `${plan.totals.minutes} min (planned ${plan.plannedMinutes}); best single pair ${plan.singlePair?.minutes} min (keeps rules: ${plan.singlePair?.keepsRules})`,
+      `${plan.plannedMinutes} min planned (${plan.totals.minutes} routed); best single pair ${plan.singlePair?.minutes} min (keeps rules: ${plan.singlePair?.keepsRules})`,
+  );
+}
+
+// The fixture charts read as whole rounds (top row last): darned stitches with one pair for the
+// whole chart (the old model, planColours) against pairs chosen round by round.
+for (const name of ["hat-band", "mitten-left", "peerie-band"]) {
+  const chart = parseChart(JSON.parse(readFileSync(`tests/fixtures/charts/${name}.json`, "utf8")));
+  const old = planColours(chart);
+  const rounds = Array.from({ length: chart.height }, (_, y) => Array.from({ length: chart.width }, (_, k) => chart.cells[y * chart.width + (chart.width - 1 - k)]));
+  const twoColourDarned = rounds.reduce((sum, round) => {
+    const present = new Set(round);
+    if (present.size > 2) return sum;
+    return sum + round.filter((c) => !old.knit.includes(chart.palette[c].key)).length;
+  }, 0);
+  const t0 = performance.now();
+  const plan = planRoundPairs({ rounds, palette: chart.palette, gauge: chart.gauge });
+  const ms = performance.now() - t0;
+  console.log(
+    `${name} (${chart.width} × ${chart.height}, ${chart.palette.length} colours): one pair ${old.knit.join("")} darns ${old.darnedStitches} ` +
+      `(${twoColourDarned} in rounds of two colours); round by round darns ${plan.totals.darnedStitches}, ` +
+      `${plan.rounds.filter((r) => r.joined.length > 0).length - 1} pair changes, ${plan.plannedMinutes} min planned against ${plan.singlePair?.minutes} min ` +
+      `for the best single pair (keeps rules: ${plan.singlePair?.keepsRules}), ${plan.totals.minutes} min routed; ${ms.toFixed(0)} ms`,
   );
 }

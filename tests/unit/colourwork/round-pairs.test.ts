@@ -11,6 +11,9 @@ import {
   type RoundPairsOptions,
   type RoundPairsPlan,
 } from "@/lib/core/colourwork/round-pairs";
+import { readFileSync } from "node:fs";
+import { parseChart } from "@/lib/core/chart/format";
+import { planColours } from "@/lib/core/colourwork/colour-plan";
 import { HALF_CM_GAUGE, HEX } from "./chart-from-rows";
 
 const KEYS = ["A", "B", "C", "D"];
@@ -115,6 +118,23 @@ describe("planRoundPairs: worked by hand", () => {
   test("palette indices work as colour names", () => {
     const plan = planRoundPairs({ rounds: [[0, 1, 0, 1]], palette: palette(["A", "B"]), gauge: HALF_CM_GAUGE }, { pins: [{ fromRound: 1, toRound: 1, pair: [1, 0] }] });
     expect(plan.rounds[0].pair).toEqual(["A", "B"]);
+  });
+});
+
+describe("planRoundPairs on the fixture mitten, read as whole rounds", () => {
+  test("one pair for the chart darns 53 stitches, 22 of them in rounds of two colours; round by round none there, and fewer in all", () => {
+    const chart = parseChart(JSON.parse(readFileSync("tests/fixtures/charts/mitten-left.json", "utf8")));
+    const rounds = Array.from({ length: chart.height }, (_, y) => Array.from({ length: chart.width }, (_, k) => chart.cells[y * chart.width + (chart.width - 1 - k)]));
+    const old = planColours(chart);
+    const inTwoColourRounds = rounds.reduce((sum, round) => (new Set(round).size > 2 ? sum : sum + round.filter((c) => !old.knit.includes(chart.palette[c].key)).length), 0);
+    expect(old.darnedStitches).toBe(53);
+    expect(inTwoColourRounds).toBe(22);
+    const plan = planRoundPairs({ rounds, palette: chart.palette, gauge: chart.gauge });
+    plan.rounds.forEach((r, i) => {
+      if (new Set(rounds[i]).size <= 2) expect(r.darned).toEqual([]);
+    });
+    expect(plan.totals.darnedStitches).toBeLessThanOrEqual(53 - 22);
+    expect(plan.plannedMinutes).toBeLessThan(plan.singlePair!.minutes);
   });
 });
 
