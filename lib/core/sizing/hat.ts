@@ -95,6 +95,10 @@ export function sizeHat(spec: HatSpec): TemplateOutput {
       repeats: 1,
       stitches: around * bodyRows,
       note: "the whole round between the brim and the crown",
+      fromRound: brimRows,
+      // when the crown starts on fewer stitches, the last body round decreases evenly to them
+      rowStitches: Array.from({ length: bodyRows }, (_, i) => (i === bodyRows - 1 ? start : around)),
+      narrowing: "even",
     },
     {
       area: "crown",
@@ -104,10 +108,13 @@ export function sizeHat(spec: HatSpec): TemplateOutput {
       repeats: sectors,
       stitches: crownStitches,
       note: `one of ${sectors} sectors; each decrease round takes 1 st from the end of every sector`,
+      fromRound: brimRows + bodyRows,
+      rowStitches: crownCounts.map((c) => c / sectors),
+      narrowing: "sector end",
     },
   ];
   const pieces: Piece[] = [
-    { name: "hat", quantity: 1, start: "long-tail", castOn: around, castOnWidthCm: roundTo(around / spc, 0.1), bindOff: 0, stitches: t.total },
+    { name: "hat", quantity: 1, start: "long-tail", castOn: around, castOnWidthCm: roundTo(around / spc, 0.1), bindOff: 0, stitches: t.total, rounds: t.counts },
   ];
 
   const write = (u: UnitWriter): string[] => {

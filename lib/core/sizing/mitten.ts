@@ -136,6 +136,8 @@ export function sizeMitten(spec: MittenSpec): TemplateOutput {
   counts.thumbTop = afterSecond;
 
   const halfTop = (pick: (c: number) => number) => top.counts.reduce((s, c) => s + pick(c), 0);
+  // Stitches of each half on every hand round: whole until the top, then each decrease round's half.
+  const halfRows = (whole: number, pick: (c: number) => number) => [...Array<number>(straightRows).fill(whole), ...top.counts.map(pick)];
   const charts: ChartArea[] = [
     {
       area: "cuff",
@@ -145,6 +147,9 @@ export function sizeMitten(spec: MittenSpec): TemplateOutput {
       repeats: 1,
       stitches: hand * cuffRows,
       note: "the whole round of the cuff",
+      fromRound: 0,
+      rowStitches: Array<number>(cuffRows).fill(hand),
+      narrowing: "edges",
     },
     {
       area: "back of hand",
@@ -154,6 +159,9 @@ export function sizeMitten(spec: MittenSpec): TemplateOutput {
       repeats: 1,
       stitches: back * straightRows + halfTop((c) => Math.ceil(c / 2)),
       note: `wrist to tip; the top ${top.rows} rows narrow by 2 sts on each decrease round`,
+      fromRound: cuffRows,
+      rowStitches: halfRows(back, (c) => Math.ceil(c / 2)),
+      narrowing: "edges",
     },
     {
       area: "palm",
@@ -166,13 +174,16 @@ export function sizeMitten(spec: MittenSpec): TemplateOutput {
         spec.thumb === "gusset"
           ? `wrist to tip; the thumb gusset stitches sit outside this chart at its edge; the top ${top.rows} rows narrow`
           : `wrist to tip; the thumb opening (${openingWidth} sts of waste yarn) is at row ${openingAt + 1}; the top ${top.rows} rows narrow`,
+      fromRound: cuffRows,
+      rowStitches: halfRows(palm, (c) => Math.floor(c / 2)),
+      narrowing: "edges",
     },
   ];
 
   const cuffWidthCm = roundTo(hand / spc, 0.1);
   const pieces: Piece[] = [
-    { name: "mitten", quantity: 2, start: "long-tail", castOn: hand, castOnWidthCm: cuffWidthCm, bindOff: 0, stitches: t.total },
-    { name: "thumb", quantity: 2, start: "picked-up", castOn: thumbSts, castOnWidthCm: 0, bindOff: 0, stitches: thumbTally.total },
+    { name: "mitten", quantity: 2, start: "long-tail", castOn: hand, castOnWidthCm: cuffWidthCm, bindOff: 0, stitches: t.total, rounds: t.counts },
+    { name: "thumb", quantity: 2, start: "picked-up", castOn: thumbSts, castOnWidthCm: 0, bindOff: 0, stitches: thumbTally.total, rounds: thumbTally.counts },
   ];
 
   const finished = {

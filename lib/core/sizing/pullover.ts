@@ -176,6 +176,9 @@ export function sizePullover(spec: PulloverSpec): TemplateOutput {
         repeats: 1,
         stitches: count * sectionRows[i],
         note: `yoke rounds ${from}–${from + sectionRows[i] - 1}${i > 0 ? `; its first round decreases to ${count} sts` : ""}`,
+        fromRound: from - 1,
+        rowStitches: Array<number>(sectionRows[i]).fill(count),
+        narrowing: "even",
       });
       from += sectionRows[i];
     });
@@ -189,6 +192,9 @@ export function sizePullover(spec: PulloverSpec): TemplateOutput {
         repeats: 1,
         stitches: body * bandRows,
         note: "the whole round just above the hem rib",
+        fromRound: hemRows,
+        rowStitches: Array<number>(bandRows).fill(body),
+        narrowing: "even",
       },
       {
         area: "sleeve band",
@@ -198,14 +204,17 @@ export function sizePullover(spec: PulloverSpec): TemplateOutput {
         repeats: 1,
         stitches: cuff * bandRows,
         note: "the whole round just above the cuff rib, on each sleeve",
+        fromRound: cuffRows,
+        rowStitches: Array<number>(bandRows).fill(cuff),
+        narrowing: "even",
       },
     );
   }
 
   const pieces: Piece[] = [
-    { name: "body", quantity: 1, start: "long-tail", castOn: body, castOnWidthCm: roundTo(body / spc, 0.1), bindOff: 0, stitches: bodyT.total },
-    { name: "sleeve", quantity: 2, start: "long-tail", castOn: cuff, castOnWidthCm: roundTo(cuff / spc, 0.1), bindOff: 0, stitches: sleeveT.total },
-    { name: "yoke", quantity: 1, start: "joined", castOn: 0, castOnWidthCm: 0, bindOff: neckSts, stitches: yokeT.total },
+    { name: "body", quantity: 1, start: "long-tail", castOn: body, castOnWidthCm: roundTo(body / spc, 0.1), bindOff: 0, stitches: bodyT.total, rounds: bodyT.counts },
+    { name: "sleeve", quantity: 2, start: "long-tail", castOn: cuff, castOnWidthCm: roundTo(cuff / spc, 0.1), bindOff: 0, stitches: sleeveT.total, rounds: sleeveT.counts },
+    { name: "yoke", quantity: 1, start: "joined", castOn: 0, castOnWidthCm: 0, bindOff: neckSts, stitches: yokeT.total, rounds: yokeT.counts },
   ];
 
   const write = (u: UnitWriter): string[] => {

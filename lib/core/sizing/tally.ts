@@ -4,6 +4,8 @@ export class Tally {
   total = 0;
   rows = 0;
   current: number;
+  /** stitches of each round, in order (what the garment model reads) */
+  counts: number[] = [];
   constructor(start: number) {
     this.current = start;
   }
@@ -12,12 +14,14 @@ export class Tally {
     if (n <= 0) return;
     this.total += n * this.current;
     this.rows += n;
+    for (let i = 0; i < n; i++) this.counts.push(this.current);
   }
   /** one shaping round leaving `after` stitches */
   shape(after: number): void {
     this.current = after;
     this.total += after;
     this.rows += 1;
+    this.counts.push(after);
   }
   /** stitches put on hold or cast on between rounds (no yarn knitted) */
   set(count: number): void {
