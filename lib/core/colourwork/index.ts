@@ -23,3 +23,14 @@ export {
 } from "./darning-rates";
 export { getCiede2000, getColourDifference, hexToLab, type Lab } from "./ciede2000";
 export { getCatchCount, getFloatLimitStitches, getRowFloats, type RowFloat, type RowFloatSummary } from "./row-floats";
+export {
+  planRoundPairs,
+  type DarnedStitch,
+  type RoundColour,
+  type RoundPairRound,
+  type RoundPairsInput,
+  type RoundPairsOptions,
+  type RoundPairsPlan,
+  type RoundPairsTotals,
+  type RoundPin,
+} from "./round-pairs";
