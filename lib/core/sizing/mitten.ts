@@ -158,7 +158,9 @@ export function sizeMitten(spec: MittenSpec): TemplateOutput {
     t.plain(straightRows);
     counts.thumbOpening = openingWidth;
     rows.thumbOpening = openingAt;
-    thumbStartRows = getRows(thumbCm + (crotchCm - openingCm), rpc);
+    // The thumb is knitted from the opening: its length is measured from there, not from the crotch
+    // (the hand's rounds between the opening and the crotch are not part of the thumb).
+    thumbStartRows = getRows(thumbCm, rpc);
   }
   for (const c of top.counts) t.shape(c);
 
@@ -247,7 +249,7 @@ export function sizeMitten(spec: MittenSpec): TemplateOutput {
         ? `Thumb: put the ${thumbSts - 1} held sts on needles and pick up 1 st in the gap (${thumbSts} sts)`
         : `Thumb: remove the waste yarn, put the ${openingWidth} sts below and ${openingWidth} above on needles and pick up 1 st at each corner (${thumbSts} sts)`;
     lines.push(
-      `${pick}; work ${thumbPlain} rnds (${u.len(thumbPlain / rpc)}), k2tog around (${afterFirst} sts), knit 1 rnd, k2tog around (${afterSecond} sts); draw the yarn through the last sts.`,
+      `${pick}; work ${thumbPlain} rnds (${u.len(thumbPlain / rpc)}), k2tog around (${afterFirst} sts), knit 1 rnd, k2tog around (${afterSecond} sts); draw the yarn through the last sts${spec.thumb === "afterthought" ? ` (the thumb is ${thumbTally.rows} rnds, ${u.len(thumbTally.rows / rpc)}, from the opening)` : ""}.`,
       `Weave in the ends and block.`,
     );
     return lines;

@@ -122,3 +122,25 @@ describe("mitten properties", () => {
     );
   });
 });
+
+describe("afterthought thumb: its length is measured from the opening", () => {
+  const base = { garment: "mitten", gauge: { stitchesPer10cm: 30, rowsPer10cm: 32 } } as const;
+  test.each([
+    // 6 cm × 3.2 rnds/cm = 19.2 → 19 rnds. Before: 6 + (crotch 0.4 × 18 = 7.2 − opening 0.25 × 18 = 4.5)
+    // = 8.7 cm → 28 rnds, 2.7 cm too long ((memory) proportions, MITTEN_PROPORTIONS)
+    { thumbLengthCm: 6, rows: 19 },
+    // 6.25 cm × 3.2 = 20 rnds exactly
+    { thumbLengthCm: 6.25, rows: 20 },
+    // 6.09375 × 3.2 = 19.5: a tie goes up → 20
+    { thumbLengthCm: 6.09375, rows: 20 },
+    // just under the tie: 6.09 × 3.2 = 19.488 → 19
+    { thumbLengthCm: 6.09, rows: 19 },
+  ])("a $thumbLengthCm cm thumb → $rows rnds, the same as a gusset thumb", ({ thumbLengthCm, rows }) => {
+    const measurements = { handCircumferenceCm: 19, handLengthCm: 18, thumbLengthCm };
+    const after = sizeGarment({ ...base, measurements, options: { thumb: "afterthought" } });
+    const gusset = sizeGarment({ ...base, measurements, options: { thumb: "gusset" } });
+    expect(after.rows.thumb).toBe(rows);
+    expect(gusset.rows.thumb).toBe(rows);
+    expect(after.recipe.metric.join(" ")).toMatch(new RegExp(`the thumb is ${rows} rnds, [\\d.]+ cm, from the opening`));
+  });
+});
