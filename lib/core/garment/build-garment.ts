@@ -107,7 +107,9 @@ function buildPart(sizing: SizingResult, sp: Piece, partName: string, side: "lef
     });
     if (!between) pushPlain(true);
     frameWidth = Math.max(frameWidth, offset);
-    rounds.push({ index: r, stitches: count, shaping: r > 0 ? count !== counts[r - 1] : false, spans });
+    // the first round shapes when it leaves a different count than the part started on (a yoke's join)
+    const before = r > 0 ? counts[r - 1] : sp.castOn > 0 ? sp.castOn : (sizing.counts.yokeJoin ?? count);
+    rounds.push({ index: r, stitches: count, shaping: count !== before, spans });
   });
 
   const areas: GarmentArea[] = charts.map((a) => {
