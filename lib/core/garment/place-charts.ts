@@ -1,7 +1,7 @@
 // Charts placed on areas: each chart cell is mapped onto the real stitch it stands for, on every
 // piece that has the area and on every repeat; cells outside the shape are never knitted, so
 // paint there is refused. Colours of all charts are joined by palette key.
-import type { Chart, PaletteColour } from "../chart/model";
+import { MAX_PALETTE, type Chart, type PaletteColour } from "../chart/model";
 import { LetteringError } from "../chart/lettering/letter";
 import { findChartArea, inShapeColumns } from "./build-garment";
 import { GarmentError } from "./garment-error";
@@ -34,6 +34,9 @@ function joinPalettes(placements: ChartPlacement[]): { palette: PaletteColour[];
     }),
   );
   if (palette.length === 0) palette.push({ ...PLAIN_MAIN_COLOUR });
+  if (palette.length > MAX_PALETTE) {
+    throw new GarmentError("charts", `the charts use ${palette.length} colours between them (keys ${palette.map((c) => c.key).join(", ")}); a garment may use at most ${MAX_PALETTE}`);
+  }
   return { palette, maps };
 }
 
