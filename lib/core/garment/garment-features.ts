@@ -47,17 +47,25 @@ interface PartReading {
   rounds: RoundReading[];
 }
 
-/** Frame column (knitting order, from 0) of every stitch of a round. */
-function frameColumns(part: GarmentPart, r: number, areaWidth: (area: string) => number): number[] {
-  const out: number[] = [];
-  for (const span of part.rounds[r].spans) {
-    if (span.row < 0) span.columns.forEach((_, j) => out.push(span.frameStart + j));
-    else {
-      const w = areaWidth(span.area);
-      for (const x of span.columns) out.push(span.frameStart + (w - 1 - x));
+/**
+ * Where each stitch of a round lies on the darning grid: charted stitches only (plain stitches, the
+ * thumb gusset for one, are never darned), laid around the round in knitting order, each repeat
+ * of each area at its chart's full width so the areas line up from round to round. Returns the
+ * column of every stitch (-1 for plain ones) and the width of the round on the grid.
+ */
+function darningColumns(round: GarmentPart["rounds"][number], areaWidth: (area: string) => number): { cols: number[]; width: number } {
+  const cols: number[] = [];
+  let offset = 0;
+  for (const span of round.spans) {
+    if (span.row < 0) {
+      for (let j = 0; j < span.columns.length; j++) cols.push(-1);
+      continue;
     }
+    const w = areaWidth(span.area);
+    for (const x of span.columns) cols.push(offset + (w - 1 - x));
+    offset += w;
   }
-  return out;
+  return { cols, width: offset };
 }
 
 function readPart(
@@ -146,25 +154,27 @@ function readPart(
   });
   out.ends += Math.max(0, knitEnds - 2);
 
-  // The darning route on the unrolled rounds, cut open where the fewest darned stitches lie so a
-  // motif across the start of the round is worked as one.
+  // The darning route on the unrolled rounds, cut open where the fewest darned stitches lie: each
+  // round is turned about that column on its own width, so a motif across the start of the round
+  // is one strand, as worked.
   if (darnedHere.length > 0) {
-    const F = part.frameWidth;
     const H = part.rounds.length;
     const widthOf = (area: string) => garment.sizing.charts.find((a) => a.area === area)?.width ?? 0;
-    const frame: { col: number; colour: number }[][] = rows.map((row, r) => {
-      const cols = frameColumns(part, r, widthOf);
-      return Array.from(row, (c, s) => ({ col: cols[s], colour: c })).filter((p) => placed.darn.includes(p.colour));
+    const layout = part.rounds.map((round) => darningColumns(round, widthOf));
+    const D = Math.max(1, ...layout.map((l) => l.width));
+    const perColumn = new Array<number>(D).fill(0);
+    rows.forEach((row, r) => {
+      for (let s2 = 0; s2 < row.length; s2++) if (placed.darn.includes(row[s2])) perColumn[layout[r].cols[s2]] += 1;
     });
-    const perColumn = new Array<number>(F).fill(0);
-    for (const row of frame) for (const p of row) perColumn[p.col] += 1;
     let cut = 0;
-    for (let f = 1; f < F; f++) if (perColumn[f] < perColumn[cut]) cut = f;
-    const chart: Chart = createChart(F, H, gauge, palette, 0);
-    frame.forEach((row, y) => {
-      for (const p of row) {
-        const rotated = (p.col - cut + F) % F;
-        chart.cells[y * F + (F - 1 - rotated)] = p.colour;
+    for (let f = 1; f < D; f++) if (perColumn[f] < perColumn[cut]) cut = f;
+    const chart: Chart = createChart(D, H, gauge, palette, 0);
+    rows.forEach((row, y) => {
+      const { cols, width } = layout[y];
+      for (let s2 = 0; s2 < row.length; s2++) {
+        if (!placed.darn.includes(row[s2])) continue;
+        const rotated = (((cols[s2] - cut) % width) + width) % width;
+        chart.cells[y * D + (D - 1 - rotated)] = row[s2];
       }
     });
     const darning = planDarning(chart, {

@@ -149,3 +149,31 @@ describe("the CLI", () => {
     expect((JSON.parse(ok.stdout) as VerbOutput).pieces.map((p) => p.name)).toEqual(["left mitten", "right mitten"]);
   }, 60_000);
 });
+
+describe("a round is the whole round", () => {
+  // A 2-st-wide gold motif either side of the start of the round is one motif: darned as one
+  // strand it has 2 ends; cut open at the start of the round it would be two strands and 4 ends.
+  test("a darned motif across the start of the round is one strand (cuff)", () => {
+    const cuff = area(sizing, "cuff");
+    const chart = chartV1(cuff, only((x, y) => ((x < 2 || x >= cuff.width - 2) && (y === 5 || y === 6) ? "C" : "A")), sizing);
+    const out = run({ size, charts: [{ area: "cuff", chart }], darn: ["C"] }) as VerbOutput;
+    for (const p of out.pieces) expect(p.features).toMatchObject({ duplicateStitches: 8, ends: 2 });
+  });
+
+  test("the palm's last stitch meets the back's first: a motif across them is one strand", () => {
+    // hand rows 26–27, above the gusset: back stitches 1–2 from the right, palm stitches 22–23
+    const b = chartV1(back, only((x, y) => (x >= back.width - 2 && (y === 25 || y === 26) ? "C" : "A")), sizing);
+    const palm = chartV1(area(sizing, "palm"), only((x, y) => (x < 2 && (y === 25 || y === 26) ? "C" : "A")), sizing);
+    const out = run({ size, charts: [{ area: "back of hand", chart: b }, { area: "palm", chart: palm }], darn: ["C"] }) as VerbOutput;
+    for (const p of out.pieces) expect(p.features).toMatchObject({ duplicateStitches: 8, ends: 2 });
+  });
+
+  test("back of hand and palm share the round's knitted pair: a colour only on the palm is carried round the back", () => {
+    const palm = chartV1(area(sizing, "palm"), only((x) => (x % 4 === 0 ? "B" : "A")), sizing);
+    const out = run({ size, charts: [{ area: "palm", chart: palm }] }) as VerbOutput;
+    // the red float across the 23-st back needs catches in every round where the palm is red and oat
+    const left = out.pieces[0].features;
+    expect(left.floatCatches).toBeGreaterThan(0);
+    expect(left.strandedStitches).toBe(area(sizing, "palm").stitches);
+  });
+});
