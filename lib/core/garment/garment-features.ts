@@ -83,8 +83,10 @@ function readPart(
   const stitchW = getStitchWidthCm(gauge.stitchesPer10cm);
 
   // The planner sees only the colours this part uses (a yarn never used here is never held here).
+  const pins = placed.pins.filter((p) => (p.piece ?? piece.name) === piece.name && (p.part ?? piece.parts[0].name) === part.name);
   const used = new Set<number>();
   for (const row of rows) for (const c of row) used.add(c);
+  for (const p of pins) for (const key of p.pair) used.add(palette.findIndex((q) => q.key === key));
   const local = [...used].sort((a, b) => a - b);
   const toLocal = new Map(local.map((c, i) => [c, i]));
   const darnedHere = placed.darn.filter((c) => used.has(c));
@@ -92,6 +94,7 @@ function readPart(
     { rounds: rows.map((row) => Array.from(row, (c) => toLocal.get(c)!)), palette: local.map((c) => ({ key: palette[c].key, name: palette[c].name, hex: palette[c].hex })), gauge },
     {
       darn: darnedHere.map((c) => palette[c].key),
+      ...(pins.length > 0 ? { pins: pins.map((p) => ({ fromRound: p.fromRound, toRound: p.toRound, pair: p.pair })) } : {}),
       ...(opts.floatLimitStitches !== undefined ? { floatLimitStitches: opts.floatLimitStitches } : {}),
       ...(opts.floatLimitCm !== undefined ? { floatLimitCm: opts.floatLimitCm } : {}),
       ...(opts.carryLimitCm !== undefined ? { carryLimitCm: opts.carryLimitCm } : {}),
@@ -101,9 +104,18 @@ function readPart(
   const keyIndex = new Map(palette.map((p, i) => [p.key, i]));
   const out: PartReading = { plain: 0, stranded: 0, darned: 0, catches: 0, shaping: 0, ends: 0, carryCm: 0, rounds: [] };
   let knitEnds = 0;
+  // Stitches the plan darns: every stitch of a `darn` colour, and in pinned rounds any colour
+  // beside the pinned pair.
+  const darnedMask = plan.rounds.map((pr, r) => {
+    const m = new Uint8Array(rows[r].length);
+    for (const d of pr.darned) m[d.stitch - 1] = 1;
+    return m;
+  });
+  const darnedColours = [...new Set(plan.rounds.flatMap((pr) => pr.darned.map((d) => keyIndex.get(d.colour)!)))].sort((a, b) => a - b);
   plan.rounds.forEach((pr, r) => {
     const row = rows[r];
     const round = part.rounds[r];
+    const isDarned = darnedMask[r];
     const knitted = Uint8Array.from(row);
     for (const d of pr.darned) knitted[d.stitch - 1] = keyIndex.get(d.onto)!;
     // Plain or stranded by area: a run of one area's stitches (one chart row, one repeat) whose
@@ -115,7 +127,7 @@ function readPart(
       let first = -1;
       let two = false;
       for (let j = k; j < k + n; j++) {
-        if (placed.darn.includes(row[j])) continue;
+        if (isDarned[j]) continue;
         if (first < 0) first = row[j];
         else if (row[j] !== first) two = true;
       }
@@ -157,14 +169,14 @@ function readPart(
   // The darning route on the unrolled rounds, cut open where the fewest darned stitches lie: each
   // round is turned about that column on its own width, so a motif across the start of the round
   // is one strand, as worked.
-  if (darnedHere.length > 0) {
+  if (darnedColours.length > 0) {
     const H = part.rounds.length;
     const widthOf = (area: string) => garment.sizing.charts.find((a) => a.area === area)?.width ?? 0;
     const layout = part.rounds.map((round) => darningColumns(round, widthOf));
     const D = Math.max(1, ...layout.map((l) => l.width));
     const perColumn = new Array<number>(D).fill(0);
     rows.forEach((row, r) => {
-      for (let s2 = 0; s2 < row.length; s2++) if (placed.darn.includes(row[s2])) perColumn[layout[r].cols[s2]] += 1;
+      for (let s2 = 0; s2 < row.length; s2++) if (darnedMask[r][s2]) perColumn[layout[r].cols[s2]] += 1;
     });
     let cut = 0;
     for (let f = 1; f < D; f++) if (perColumn[f] < perColumn[cut]) cut = f;
@@ -172,13 +184,13 @@ function readPart(
     rows.forEach((row, y) => {
       const { cols, width } = layout[y];
       for (let s2 = 0; s2 < row.length; s2++) {
-        if (!placed.darn.includes(row[s2])) continue;
+        if (!darnedMask[y][s2]) continue;
         const rotated = (((cols[s2] - cut) % width) + width) % width;
         chart.cells[y * D + (D - 1 - rotated)] = row[s2];
       }
     });
     const darning = planDarning(chart, {
-      darn: darnedHere.map((c) => palette[c].key),
+      darn: darnedColours.map((c) => palette[c].key),
       ...(opts.carryLimitCm !== undefined ? { carryLimitCm: opts.carryLimitCm } : {}),
       ...(opts.tailCm !== undefined ? { tailCm: opts.tailCm } : {}),
       ...(opts.rates ? { rates: pickDarningRates(opts.rates) } : {}),

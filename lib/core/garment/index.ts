@@ -20,6 +20,7 @@ export type {
   PieceReading,
   PlacedGarment,
   PlaceOptions,
+  RoundPinInput,
   RoundReading,
   RoundSpan,
   YarnReading,

@@ -177,3 +177,30 @@ describe("a round is the whole round", () => {
     expect(left.strandedStitches).toBe(area(sizing, "palm").stitches);
   });
 });
+
+describe("pinned pairs", () => {
+  // Three colours in hand rows 5–6 (rounds 22–23): red on the back, gold on one palm stitch.
+  const b = chartV1(back, only((x, y) => (y >= 4 && y <= 5 && x % 2 ? "B" : "A")), sizing);
+  const palm = chartV1(area(sizing, "palm"), only((x, y) => (y >= 4 && y <= 5 && x === 20 ? "C" : "A")), sizing);
+  const charts = [{ area: "back of hand", chart: b }, { area: "palm", chart: palm }];
+
+  test("a pin over the three-colour rounds keeps its pair and darns the rest, on every piece it names", () => {
+    const out = run({ size, charts, pins: [{ fromRound: 22, toRound: 23, pair: ["A", "B"] }] }) as VerbOutput;
+    for (const p of out.pieces) expect(p.features.duplicateStitches).toBe(2);
+    const r22 = out.rounds.find((r) => r.piece === "right mitten" && r.part === "hand" && r.round === 22)!;
+    expect(r22).toMatchObject({ knit: ["A", "B"], darned: 1 });
+  });
+
+  test("a pin on one piece leaves the other to the three-colour rule", () => {
+    expect(() => run({ size, charts, pins: [{ piece: "left mitten", fromRound: 22, toRound: 23, pair: ["A", "B"] }] })).toThrow(/round 22 of the right mitten's hand/);
+  });
+
+  test.each<[unknown, RegExp]>([
+    [{ piece: "sock", fromRound: 1, toRound: 2, pair: ["A", "B"] }, /pins\[0\]\.piece: no piece 'sock'/],
+    [{ part: "cuff", fromRound: 1, toRound: 2, pair: ["A", "B"] }, /pins\[0\]\.part: the left mitten has no part 'cuff'; its parts are 'hand', 'thumb'/],
+    [{ part: "thumb", fromRound: 10, toRound: 17, pair: ["A", "B"] }, /pins\[0\]: rounds 10–17 are not rounds of the left mitten's thumb \(1–16\)/],
+    [{ fromRound: 1, toRound: 2, pair: ["A", "Z"] }, /pins\[0\]\.pair\[1\]: colour 'Z' is in no chart's palette/],
+  ])("a pin that cannot apply is refused: %o", (pin, message) => {
+    expect(() => run({ size, charts, pins: [pin] })).toThrow(message);
+  });
+});
