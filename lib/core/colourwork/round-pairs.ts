@@ -11,7 +11,10 @@ import type { FloatMark } from "./colour-plan";
 import { ColourworkError } from "./colourwork-error";
 import { DEFAULT_CARRY_LIMIT_CM, DEFAULT_FLOAT_LIMIT_CM, DEFAULT_FLOAT_LIMIT_STITCHES, MAX_LENGTH_LIMIT_CM } from "./colourwork-options";
 import { defaultDarningRates, getDarningMinutes, roundTenth, type DarningRates } from "./darning-rates";
-import { getFloatLimitStitches, getRowFloats } from "./row-floats";
+import { getCarryGeometry } from "./carry-geometry";
+import { routeStitchSet } from "./route-colour";
+import { getCatchStitches, getFloatLimitStitches, getRowFloats, type CatchAvoid } from "./row-floats";
+import { getStitchSet } from "./stitch-set";
 
 /** A colour named by its palette key or its palette index. */
 export type RoundColour = string | number;
@@ -88,18 +91,29 @@ export interface RoundPairsTotals {
   cuts: number;
   /** ends of knitted yarns: joins + cuts */
   knitEnds: number;
-  /** ends of darning strands (estimated: see `routeCost`) */
+  /** ends of darning strands, from the route of each darned colour over the whole piece */
   darningEnds: number;
   ends: number;
   /** darning carries plus held yarns carried up the inside, cm */
   carryCm: number;
+  /** float catches, staggered between rounds */
   catches: number;
   minutes: number;
+}
+
+export interface RoundDarning {
+  key: string;
+  stitches: number;
+  strands: number;
+  ends: number;
+  carryCm: number;
 }
 
 export interface RoundPairsPlan {
   rounds: RoundPairRound[];
   totals: RoundPairsTotals;
+  /** the route of each darned colour over the whole piece (one strand per group within reach) */
+  darning: RoundDarning[];
   /**
    * The best single pair held for the whole piece (the old model), priced the same way; null when
    * pins leave none. `keepsRules` is false when it darns in a round holding only two colours (not
@@ -108,7 +122,13 @@ export interface RoundPairsPlan {
   singlePair: { pair: string[]; minutes: number; keepsRules: boolean } | null;
   /** minutes the planner minimised (darning route estimated per round): compare with singlePair.minutes */
   plannedMinutes: number;
-  /** how the darning route was priced while choosing */
+  /** the parts of plannedMinutes that differ from the totals: estimated route, catches before staggering */
+  planned: { darningEnds: number; carryCm: number; catches: number };
+  /**
+   * How the darning route was priced while choosing pairs: per round, from the clusters of each
+   * darned colour and whether they continue a strand from the round below (an exact route per
+   * candidate sequence would be far too slow). Totals use the real route of the chosen plan.
+   */
   routeCost: "estimated per round";
   settings: { inTheRound: boolean; floatLimitStitches: number; carryLimitCm: number; rates: DarningRates };
 }
@@ -567,7 +587,11 @@ function describeRoundPairs(costs: RoundPairCosts, sequence: HeldPair[]): RoundP
   const { piece } = costs;
   const key = (c: number) => piece.keys[c];
   const rounds: RoundPairRound[] = [];
-  const t = { stitches: 0, darned: 0, joins: 0, cuts: 0, darningEnds: 0, carryCm: 0, catches: 0 };
+  const t = { stitches: 0, darned: 0, joins: 0, cuts: 0, idleCm: 0, catches: 0, estEnds: 0, estCarry: 0, estCatches: 0 };
+  const h = 10 / piece.gauge.rowsPer10cm;
+  // catch stitches of the round below, per carried colour (palette index)
+  let below = new Map<number, Set<number>>();
+  const none = new Set<number>();
   sequence.forEach((p, r) => {
     const q = r > 0 ? sequence[r - 1] : null;
     const work = costs.roundWork(r, p);
@@ -575,9 +599,12 @@ function describeRoundPairs(costs: RoundPairCosts, sequence: HeldPair[]): RoundP
     const n = round.length;
     const joined = p.filter((c) => !q || !q.includes(c));
     const cut = q ? q.filter((c) => !p.includes(c)) : [];
-    const route = costs.linkRoute(r, q, p);
     const colours = Uint8Array.from(work.knitted, (c) => (c === p[0] ? 0 : 1));
-    const floats = getRowFloats(colours, piece.floatLimit, piece.inTheRound);
+    const avoid: CatchAvoid = [below.get(p[0]) ?? none, below.get(p[1] ?? p[0]) ?? none];
+    const floats = getRowFloats(colours, piece.floatLimit, piece.inTheRound, avoid);
+    const caught = getCatchStitches(floats);
+    below = new Map([[p[0], caught[0] as Set<number>]]);
+    if (p.length > 1) below.set(p[1], caught[1] as Set<number>);
     const darned: DarnedStitch[] = [];
     for (let s = 0; s < n; s++) {
       if (costs.isDarned(r, round[s], p)) darned.push({ stitch: s + 1, colour: key(round[s]), onto: key(work.knitted[s]) });
@@ -588,9 +615,12 @@ function describeRoundPairs(costs: RoundPairCosts, sequence: HeldPair[]): RoundP
     t.darned += work.darned;
     t.joins += joined.length;
     t.cuts += cut.length;
-    t.darningEnds += route.ends;
-    t.carryCm += route.carryCm + work.idle * (10 / piece.gauge.rowsPer10cm);
+    t.idleCm += work.idle * h;
     t.catches += floats.catches;
+    const estimate = costs.linkRoute(r, q, p);
+    t.estEnds += estimate.ends;
+    t.estCarry += estimate.carryCm + work.idle * h;
+    t.estCatches += work.catches;
     rounds.push({
       round: r + 1,
       stitches: n,
@@ -614,9 +644,13 @@ function describeRoundPairs(costs: RoundPairCosts, sequence: HeldPair[]): RoundP
   });
   // every yarn still held after the last round is cut
   if (sequence.length > 0) t.cuts += sequence[sequence.length - 1].length;
+  const darning = routeDarnedColours(costs, sequence);
+  const darningEnds = darning.reduce((sum, d) => sum + d.ends, 0);
+  const darningCarry = darning.reduce((sum, d) => sum + d.carryCm, 0);
   const knitEnds = t.joins + t.cuts;
-  const ends = knitEnds + t.darningEnds;
-  const minutes = getDarningMinutes({ stitches: t.darned, ends, carryCm: t.carryCm, catches: t.catches }, piece.rates);
+  const ends = knitEnds + darningEnds;
+  const carryCm = darningCarry + t.idleCm;
+  const minutes = getDarningMinutes({ stitches: t.darned, ends, carryCm, catches: t.catches }, piece.rates);
   const single = chooseSinglePair(costs);
   return {
     rounds,
@@ -627,17 +661,53 @@ function describeRoundPairs(costs: RoundPairCosts, sequence: HeldPair[]): RoundP
       joins: t.joins,
       cuts: t.cuts,
       knitEnds,
-      darningEnds: t.darningEnds,
+      darningEnds,
       ends,
-      carryCm: roundTenth(t.carryCm),
+      carryCm: roundTenth(carryCm),
       catches: t.catches,
       minutes: roundTenth(minutes),
     },
+    darning: darning.map((d) => ({ ...d, carryCm: roundTenth(d.carryCm) })),
     singlePair: single ? { pair: single.pair.map(key), minutes: roundTenth(single.minutes), keepsRules: single.keepsRules } : null,
     plannedMinutes: roundTenth(costs.sequenceMinutes(sequence)),
+    planned: { darningEnds: t.estEnds, carryCm: roundTenth(t.estCarry), catches: t.estCatches },
     routeCost: "estimated per round",
     settings: { inTheRound: piece.inTheRound, floatLimitStitches: piece.floatLimit, carryLimitCm: piece.carryLimitCm, rates: piece.rates },
   };
+}
+
+/**
+ * Routes every darned colour over the whole piece. Rounds are laid on a grid as wide as the widest
+ * round, stitch 1 of every round in the same column (in the round, the first and last column meet;
+ * a shorter round's own last stitch is then placed as if the round were full width).
+ */
+function routeDarnedColours(costs: RoundPairCosts, sequence: HeldPair[]): RoundDarning[] {
+  const { piece } = costs;
+  const R = sequence.length;
+  const width = piece.rounds.reduce((m, round) => Math.max(m, round.length), 0);
+  if (R === 0 || width === 0) return [];
+  const k = piece.keys.length;
+  const NONE = k; // a cell not darned (or outside the round)
+  const cells = new Uint8Array(width * R).fill(NONE);
+  const counts = new Array<number>(k).fill(0);
+  sequence.forEach((p, r) => {
+    const round = piece.rounds[r];
+    for (let s = 0; s < round.length; s++) {
+      if (!costs.isDarned(r, round[s], p)) continue;
+      // knitting order runs from the right, as on a chart: stitch 1 is the rightmost column
+      cells[r * width + (width - 1 - s)] = round[s];
+      counts[round[s]]++;
+    }
+  });
+  const g = getCarryGeometry(piece.gauge, piece.carryLimitCm);
+  const out: RoundDarning[] = [];
+  for (let c = 0; c < k; c++) {
+    if (counts[c] === 0) continue;
+    const set = getStitchSet({ width, height: R, cells }, c, piece.inTheRound);
+    const route = routeStitchSet(set, g);
+    out.push({ key: piece.keys[c], stitches: set.n, strands: route.strands.length, ends: route.ends, carryCm: route.carryCm });
+  }
+  return out;
 }
 
 function describeReason(
