@@ -7,7 +7,7 @@ import { describe, expect, test } from "vitest";
 import { sizeGarment } from "@/lib/core/sizing/size-garment";
 import { checkGauge } from "@/lib/core/yarn/yarn-weights";
 
-const warnOf = (gauge: Record<string, number>) =>
+const warnOf = (gauge: Record<string, number | undefined>) =>
   sizeGarment({ garment: "hat", size: "woman", gauge: { ...gauge }, yarnCategory: 4 }).warnings.filter((w) => /usual range/.test(w));
 
 describe("category 4 (16–20 sts per 4 in / 10 cm) at its bounds, in each unit", () => {
