@@ -10,7 +10,7 @@ import { MITTEN_PROPORTIONS, sizeMitten, type TemplateOutput } from "./mitten";
 import { PULLOVER_PROPORTIONS, sizePullover } from "./pullover";
 import type { GarmentKind, SizingResult } from "./sizing-result";
 import { SizingError } from "./sizing-error";
-import { STANDARD_SIZES, getSizeKeys, getStandardMeasurements } from "./standard-sizes";
+import { STANDARD_SIZES, getAssumedHead, getSizeKeys, getStandardMeasurements } from "./standard-sizes";
 import { CM_PER_IN, roundTo, toLength } from "./units";
 import { checkGauge, YARN_WEIGHTS } from "../yarn/yarn-weights";
 
@@ -177,6 +177,7 @@ export function sizeGarment(rawInput: unknown): SizingResult {
       upperArmCm: cm.upperArm,
       wristCm: cm.wrist,
       headCircumferenceCm: cm.headCircumference,
+      assumedHead: getAssumedHead(input.size, main),
       yokeDepthCm: opt.yokeDepth,
       hemLengthCm: opt.hemLength,
       cuffLengthCm: opt.cuffLength,
