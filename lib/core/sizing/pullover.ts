@@ -2,7 +2,7 @@
 // on one needle for a circular yoke with three decrease rounds, neckband. Colourwork either in the
 // yoke (a chart per yoke section) or in bands above the hem and the cuffs.
 import type { Gauge } from "../chart/model";
-import { getCastOn, getRows, nearestEven, nearestMultiple } from "./cast-on";
+import { ceilMultiple, getCastOn, getRows, nearestEven, nearestMultiple } from "./cast-on";
 import type { TemplateOutput } from "./mitten";
 import { IMPERIAL, METRIC, everyNth, ribFor, type UnitWriter } from "./recipe-text";
 import type { ChartArea, Piece } from "./sizing-result";
@@ -30,8 +30,6 @@ export const PULLOVER_PROPORTIONS = {
   sleeveTopStraightPerSleeve: 0.07,
   /** a ribbed neckband stretches by about a third (memory): the neck must reach head ÷ this */
   neckStretch: 4 / 3,
-  /** head assumed for the neck check when none is measured: a small child's (Typical Head Sizes table, toddler 18–20 in) */
-  assumedHeadCm: 48,
   source: "Zimmermann's percentage system (Knitting Without Tears, 1971; from memory) and (memory) common practice",
 } as const;
 
@@ -43,6 +41,8 @@ export interface PulloverSpec {
   wristCm?: number;
   /** the wearer's head, so the neck opening can pass over it */
   headCircumferenceCm?: number;
+  /** the head the neck is checked against when none is measured (see getAssumedHead) */
+  assumedHead: { cm: number; label: string };
   yokeDepthCm?: number;
   hemLengthCm?: number;
   cuffLengthCm?: number;
@@ -86,7 +86,9 @@ export function sizePullover(spec: PulloverSpec): TemplateOutput {
   const q = Math.cbrt(neckTarget / yokeStart);
   const y1 = nearestMultiple(yokeStart * q, unit);
   const y2 = nearestMultiple(yokeStart * q * q, unit);
-  const neck = nearestMultiple(neckTarget, unit);
+  // A measured head sets a minimum: round up to the repeat, never below it.
+  const neck =
+    neckMinSts > 0 ? Math.max(nearestMultiple(P.neckPerBody * body, unit), ceilMultiple(neckMinSts, unit)) : nearestMultiple(neckTarget, unit);
   const yokeCounts = [yokeStart, Math.min(y1, yokeStart), Math.min(y2, y1, yokeStart), Math.min(neck, y2, y1, yokeStart)];
   if (yokeCounts[1] === yokeCounts[0] || yokeCounts[2] === yokeCounts[1] || yokeCounts[3] === yokeCounts[2]) {
     warnings.push(`a repeat of ${spec.repeat} sts is too wide for three yoke decreases: some yoke sections keep the same count`);
@@ -157,10 +159,10 @@ export function sizePullover(spec: PulloverSpec): TemplateOutput {
   });
   yokeT.plain(neckRows);
   const neckSts = yokeCounts[3];
-  const headCheckCm = spec.headCircumferenceCm ?? P.assumedHeadCm;
-  if ((neckSts / spc) * P.neckStretch < headCheckCm) {
+  const headCheckCm = spec.headCircumferenceCm ?? spec.assumedHead.cm;
+  if ((neckSts / spc) * P.neckStretch < headCheckCm - 1e-9) {
     warnings.push(
-      `the neck opening is ${roundTo(neckSts / spc, 0.1)} cm around; a rib stretches about a third, which may not pass over a ${roundTo(headCheckCm, 0.1)} cm head${spec.headCircumferenceCm === undefined ? " (give headCircumferenceCm to size the neck for the wearer)" : ""}`,
+      `the neck opening is ${roundTo(neckSts / spc, 0.1)} cm around; a rib stretches about a third, which may not pass over a ${roundTo(headCheckCm, 0.1)} cm head${spec.headCircumferenceCm === undefined ? ` (a typical ${spec.assumedHead.label} head, Typical Head Sizes table; give headCircumferenceCm to size the neck for the wearer)` : ""}`,
     );
   }
 

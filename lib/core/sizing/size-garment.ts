@@ -10,7 +10,7 @@ import { MITTEN_PROPORTIONS, sizeMitten, type TemplateOutput } from "./mitten";
 import { PULLOVER_PROPORTIONS, sizePullover } from "./pullover";
 import type { GarmentKind, SizingResult } from "./sizing-result";
 import { SizingError } from "./sizing-error";
-import { STANDARD_SIZES, getSizeKeys, getStandardMeasurements } from "./standard-sizes";
+import { STANDARD_SIZES, getAssumedHead, getSizeKeys, getStandardMeasurements } from "./standard-sizes";
 import { CM_PER_IN, roundTo, toLength } from "./units";
 import { checkGauge, YARN_WEIGHTS } from "../yarn/yarn-weights";
 
@@ -126,12 +126,13 @@ export function sizeGarment(rawInput: unknown): SizingResult {
     if (v !== undefined) opt[name] = v;
   }
 
-  const { gauge, rowsDerived, warnings: gaugeWarnings } = resolveGauge(input.gauge);
+  const { gauge, given: givenGauge, rowsDerived, warnings: gaugeWarnings } = resolveGauge(input.gauge);
   warnings.push(...gaugeWarnings);
   if (rowsDerived) sources.push("Munden, J. Textile Institute 1959: relaxed plain-knit proportions (row gauge assumed)");
 
   if (input.yarnCategory !== undefined) {
-    const check = checkGauge(input.yarnCategory, roundTo(gauge.stitchesPer10cm, 0.1), garment);
+    // In the unit the gauge was given: the standard publishes its ranges per 4 in and per 10 cm alike.
+    const check = checkGauge(input.yarnCategory, givenGauge.stitches, garment, givenGauge.per);
     if (check.message) warnings.push(check.message);
     sources.push(YARN_WEIGHTS.source);
   }
@@ -176,6 +177,7 @@ export function sizeGarment(rawInput: unknown): SizingResult {
       upperArmCm: cm.upperArm,
       wristCm: cm.wrist,
       headCircumferenceCm: cm.headCircumference,
+      assumedHead: getAssumedHead(input.size, main),
       yokeDepthCm: opt.yokeDepth,
       hemLengthCm: opt.hemLength,
       cuffLengthCm: opt.cuffLength,

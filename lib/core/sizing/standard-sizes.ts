@@ -124,3 +124,22 @@ export function getStandardMeasurements(garment: GarmentKind, key: string): Reco
   if (s.upperArmIn !== null) out.upperArmCm = inToCm(s.upperArmIn);
   return out;
 }
+
+/**
+ * The head a pullover's neck must pass over when none is measured: the middle of the Typical Head
+ * Sizes row for the wearer (HEAD_SIZES' source): a men's size → man (22–24.5 in), a women's size or a
+ * measured adult chest → woman (21–23.5 in). For a measured chest under 71 cm (28 in, the smallest
+ * adult chest in BODY_SIZES) a child's (19–20.5 in), under 56 cm (22 in) a toddler's (18–20 in):
+ * those two chest bounds are ours (memory), not read from a source.
+ */
+export function getAssumedHead(sizeKey: string | undefined, chestCm: number): { cm: number; label: string } {
+  const row = (key: string) => HEAD_SIZES.sizes.find((h) => h.key === key) as HeadSize;
+  let key: string;
+  if (sizeKey?.startsWith("men-")) key = "man";
+  else if (sizeKey?.startsWith("women-")) key = "woman";
+  else if (chestCm >= inToCm(28)) key = "woman";
+  else if (chestCm >= inToCm(22)) key = "child";
+  else key = "toddler";
+  const h = row(key);
+  return { cm: middleCm(h.headIn), label: `${h.label.toLowerCase()}'s` };
+}
