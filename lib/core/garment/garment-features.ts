@@ -189,8 +189,11 @@ function readPart(
         chart.cells[y * D + (D - 1 - rotated)] = row[s2];
       }
     });
+    // Where every round with darned stitches spans the whole grid, its first and last columns meet.
+    const full = layout.every((l, r) => l.width === D || !darnedMask[r].includes(1));
     const darning = planDarning(chart, {
       darn: darnedColours.map((c) => palette[c].key),
+      ...(full ? { routeInTheRound: true } : {}),
       ...(opts.carryLimitCm !== undefined ? { carryLimitCm: opts.carryLimitCm } : {}),
       ...(opts.tailCm !== undefined ? { tailCm: opts.tailCm } : {}),
       ...(opts.rates ? { rates: pickDarningRates(opts.rates) } : {}),
