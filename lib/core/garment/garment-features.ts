@@ -159,6 +159,7 @@ function readPart(
       shaping: round.shaping,
       knit: pr.knit,
       darned: pr.darned.length,
+      longestFloat: pr.longestFloat,
       catches: pr.catches,
     };
     if (pr.darned.length > 0 || pr.joined.length > 0 || pr.cut.length > 0 || r === 0) reading.why = pr.reason;

@@ -131,7 +131,12 @@ function checkLettering(p: ChartPlacement, chart: Chart, i: number, pieceName: s
 
 export function placeCharts(garment: Garment, placements: ChartPlacement[], opts: PlaceOptions = {}): PlacedGarment {
   const chosen = chooseCharts(garment, placements);
-  placements.forEach((p, i) => checkOutsideShape(garment, p, i));
+  placements.forEach((p, i) => {
+    checkOutsideShape(garment, p, i);
+    // every layer as given: inside the chart, and set in it reading forwards
+    const first = p.piece ?? garment.pieces.find((g) => g.areas.some((a) => a.name === p.area && a.charted))!.name;
+    checkLettering(p, p.chart, i, first);
+  });
   const { palette, maps } = joinPalettes(placements);
 
   const darn: number[] = [];

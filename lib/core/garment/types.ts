@@ -177,6 +177,8 @@ export interface RoundReading {
   knit: string[];
   /** darned stitches in the round, and their colours */
   darned: number;
+  /** longest float in stitches, and the catches that keep floats within the limit */
+  longestFloat: number;
   catches: number;
   /** said when the pair changes or stitches are darned */
   why?: string;
