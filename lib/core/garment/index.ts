@@ -26,7 +26,7 @@ export type {
   YarnReading,
 } from "./types";
 export { GarmentError } from "./garment-error";
-export { buildGarment, garmentFromSizing } from "./build-garment";
+export { areaShape, buildGarment, garmentFromSizing, inShapeColumns } from "./build-garment";
 export { placeCharts } from "./place-charts";
 export { garmentFeatures } from "./garment-features";
 export { garmentInputSchema, readGarmentInput, type GarmentInput } from "./garment-input";

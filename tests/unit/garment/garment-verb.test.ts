@@ -8,7 +8,7 @@ import { describe, expect, test } from "vitest";
 import { parseChart, serializeChart } from "@/lib/core/chart/format";
 import { flipHorizontal } from "@/lib/core/chart/ops/flip";
 import { placeLettering } from "@/lib/core/chart/ops/place-lettering";
-import { buildGarment, placeCharts, readGarmentInput } from "@/lib/core/garment";
+import { areaShape, buildGarment, placeCharts, readGarmentInput } from "@/lib/core/garment";
 import { readLettering } from "@/lib/core/garment/lettering-check";
 import { sizeGarment } from "@/lib/core/sizing/size-garment";
 import { run } from "@/scripts/core-verbs/garment";
@@ -202,5 +202,15 @@ describe("pinned pairs", () => {
     [{ fromRound: 1, toRound: 2, pair: ["A", "Z"] }, /pins\[0\]\.pair\[1\]: colour 'Z' is in no chart's palette/],
   ])("a pin that cannot apply is refused: %o", (pin, message) => {
     expect(() => run({ size, charts, pins: [pin] })).toThrow(message);
+  });
+});
+
+describe("areaShape (what the editor shows)", () => {
+  test("a child's back of hand: row 52 keeps 4 of 23 stitches, centred; every real stitch counted once", () => {
+    const shape = areaShape(buildGarment(size), "back of hand");
+    expect([shape.width, shape.height, shape.repeats]).toEqual([23, 52, 1]);
+    const top = Array.from(shape.inShape.slice(51 * 23, 52 * 23)).join("");
+    expect(top).toBe("00000000011110000000000");
+    expect(shape.inShape.reduce((s, v) => s + v, 0)).toBe(1045);
   });
 });
