@@ -254,6 +254,7 @@ export function garmentFeatures(placed: PlacedGarment, opts: FeatureOptions = {}
       tally[main[main.length - 1]?.[0] ?? 0].bindOffCm += getBindOffCm(piece.bindOff * stitchW);
     }
     const first = pi === 0;
+    const joinedIntoAnother = piece.castOn.start !== "joined" && garment.pieces.some((g) => g.castOn.start === "joined");
     return {
       name: piece.name,
       quantity: 1,
@@ -271,6 +272,9 @@ export function garmentFeatures(placed: PlacedGarment, opts: FeatureOptions = {}
         duplicateStitches: darned,
         ends,
         carryCm: roundTenth(carryCm),
+        // pieces joined into another (a pullover's body and sleeves into its yoke) are blocked with
+        // it, once (finishing is still counted per piece: the labour model has no switch for it)
+        blocked: !joinedIntoAnother,
         darnedStitches: darned,
       },
     };

@@ -151,7 +151,7 @@ export interface FeatureOptions {
 }
 
 export interface GarmentPieceFeatures extends Required<Pick<PieceFeatures,
-  "newDesign" | "proofRounds" | "plainStitches" | "strandedStitches" | "floatCatches" | "shapingRounds" | "thumbs" | "duplicateStitches" | "ends" | "carryCm"
+  "newDesign" | "proofRounds" | "plainStitches" | "strandedStitches" | "floatCatches" | "shapingRounds" | "thumbs" | "duplicateStitches" | "ends" | "carryCm" | "blocked"
 >> {
   label: string;
   /** every stitch is knitted first; darned stitches are also counted here over their underlay */

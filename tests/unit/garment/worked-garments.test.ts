@@ -149,6 +149,8 @@ describe("a women's M yoke pullover (20 sts and 28 rnds per 10 cm, an 8-st repea
     expect(body.features).toMatchObject({ strandedStitches: 0, plainStitches: 20600, shapingRounds: 0 });
     // one design for the garment: charted and proofed once
     expect(out.pieces.map((p) => p.features.newDesign)).toEqual([true, false, false, false]);
+    // body and sleeves are joined into the yoke: the pullover is blocked once, as one
+    expect(out.pieces.map((p) => (p.features as { blocked?: boolean }).blocked)).toEqual([false, false, false, true]);
     expect(left.features.shapingRounds).toBe(10);
     expect(right.features.shapingRounds).toBe(10);
     // the yoke's three decrease rounds
