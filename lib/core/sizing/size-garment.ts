@@ -10,7 +10,7 @@ import { MITTEN_PROPORTIONS, sizeMitten, type TemplateOutput } from "./mitten";
 import { PULLOVER_PROPORTIONS, sizePullover } from "./pullover";
 import type { GarmentKind, SizingResult } from "./sizing-result";
 import { SizingError } from "./sizing-error";
-import { STANDARD_SIZES, getAssumedHead, getSizeKeys, getStandardMeasurements } from "./standard-sizes";
+import { STANDARD_SIZES, getAssumedHead, getSizeKeys, getStandardMeasurements, getWristEstimateCm, getYokeDepthCapCm } from "./standard-sizes";
 import { CM_PER_IN, roundTo, toLength } from "./units";
 import { checkGauge, YARN_WEIGHTS } from "../yarn/yarn-weights";
 
@@ -49,6 +49,8 @@ export const sizeGarmentInputSchema = z.strictObject({
     .object({
       thumb: z.enum(["gusset", "afterthought"]).optional(),
       style: z.enum(["yoke", "bands"]).optional(),
+      /** pullovers: raise the back neck with short rows */
+      backNeckShortRows: z.boolean().optional(),
     })
     .catchall(num)
     .optional(),
@@ -116,9 +118,10 @@ export function sizeGarment(rawInput: unknown): SizingResult {
     used[`${name}Cm`] = { ...toLength(value), from: given !== undefined ? "given" : "standard size" };
   }
 
-  const { thumb, style, ...lengths } = input.options ?? {};
+  const { thumb, style, backNeckShortRows, ...lengths } = input.options ?? {};
   if (thumb !== undefined && garment !== "mitten") throw new SizingError("options.thumb", "applies to mittens only");
   if (style !== undefined && garment !== "pullover") throw new SizingError("options.style", "applies to pullovers only");
+  if (backNeckShortRows !== undefined && garment !== "pullover") throw new SizingError("options.backNeckShortRows", "applies to pullovers only");
   checkFields(lengths, measurementFields(spec.options), "options");
   const opt: Partial<Record<MeasurementName, number>> = {};
   for (const name of spec.options) {
@@ -178,6 +181,9 @@ export function sizeGarment(rawInput: unknown): SizingResult {
       wristCm: cm.wrist,
       headCircumferenceCm: cm.headCircumference,
       assumedHead: getAssumedHead(input.size, main),
+      wristEstimateCm: getWristEstimateCm(input.size, main),
+      yokeDepthCapCm: getYokeDepthCapCm(main),
+      backNeckShortRows: backNeckShortRows ?? false,
       yokeDepthCm: opt.yokeDepth,
       hemLengthCm: opt.hemLength,
       cuffLengthCm: opt.cuffLength,

@@ -1,7 +1,7 @@
 // Standard sizes a studio can pick instead of measuring. Every table carries its source so the
 // interface can cite it beside the numbers. Ranges are body measurements in inches, as published;
 // sizing uses the middle of a range, converted exactly (1 in = 2.54 cm).
-import { inToCm } from "./units";
+import { CM_PER_IN, inToCm } from "./units";
 
 export interface SizeRange {
   min: number;
@@ -142,4 +142,27 @@ export function getAssumedHead(sizeKey: string | undefined, chestCm: number): { 
   else key = "toddler";
   const h = row(key);
   return { cm: middleCm(h.headIn), label: `${h.label.toLowerCase()}'s` };
+}
+
+/**
+ * A wrist for a size when none is measured, to hold the percentage method's cuff to the body at large
+ * sizes: (memory) typical adult wrists, not read from a source: women's 5¾ in at a 29 in bust, men's
+ * 6½ in at a 35 in chest, each ¼ in more for every 4 in of chest (a child's in proportion below the
+ * smallest size). Men's sizes use the men's line; women's sizes and measured chests the women's.
+ */
+export function getWristEstimateCm(sizeKey: string | undefined, chestCm: number): number {
+  const chestIn = chestCm / CM_PER_IN;
+  const [base, at] = sizeKey?.startsWith("men-") ? [6.5, 35] : [5.75, 29];
+  const wristIn = chestIn >= at ? base + (chestIn - at) / 16 : (base * chestIn) / at;
+  return inToCm(wristIn);
+}
+
+/**
+ * The most a yoke should rise from the underarm to the neck for a chest, to hold the percentage
+ * method's depth (a share of the finished chest) to the body at large sizes: the armhole depth of the
+ * Craft Yarn Council women's size chart (memory: 7–7.5 in at a 36–38 in bust, ½ in more a size, i.e.
+ * 2⅝ in + bust ÷ 8) plus 1¾ in for the front neck to drop below the back (ours).
+ */
+export function getYokeDepthCapCm(chestCm: number): number {
+  return inToCm(2.625 + chestCm / CM_PER_IN / 8 + 1.75);
 }
