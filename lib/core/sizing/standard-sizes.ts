@@ -166,3 +166,31 @@ export function getWristEstimateCm(sizeKey: string | undefined, chestCm: number)
 export function getYokeDepthCapCm(chestCm: number): number {
   return inToCm(2.625 + chestCm / CM_PER_IN / 8 + 1.75);
 }
+
+export const HAT_HEIGHTS = {
+  // Source: Craft Yarn Council head and hat-height chart, as reproduced on public pattern pages:
+  // brim to crown for a hat with some slouch or a folded brim (TRADE-REFERENCES.md).
+  source: "Craft Yarn Council hat heights (brim to crown, a hat with some slouch or a folded brim): child 8.5 in, teen 10, woman 11, man 11.5",
+  heightsIn: { child: 8.5, teen: 10, woman: 11, man: 11.5 } as Record<string, number>,
+} as const;
+
+/**
+ * The standard's hat height for a size; for a head measured (or a size the chart has no row for), read
+ * between the rows at the middles of their head ranges (child 19.75 in → 8.5 in … man 23.25 in → 11.5),
+ * in proportion below the child's and no taller than the man's (ours: the chart gives rows, not a curve).
+ */
+export function getHatHeightCm(sizeKey: string | undefined, headCm: number): number {
+  const table = HAT_HEIGHTS.heightsIn;
+  if (sizeKey !== undefined && table[sizeKey] !== undefined) return inToCm(table[sizeKey]);
+  const points = HEAD_SIZES.sizes
+    .filter((h) => table[h.key] !== undefined)
+    .map((h) => ({ head: (h.headIn.min + h.headIn.max) / 2, height: table[h.key] }));
+  const headIn = headCm / CM_PER_IN;
+  const [lo, hi] = [points[0], points[points.length - 1]];
+  if (headIn <= lo.head) return inToCm((lo.height * headIn) / lo.head);
+  if (headIn >= hi.head) return inToCm(hi.height);
+  const j = points.findIndex((p) => p.head >= headIn);
+  const a = points[j - 1];
+  const b = points[j];
+  return inToCm(a.height + ((b.height - a.height) * (headIn - a.head)) / (b.head - a.head));
+}
