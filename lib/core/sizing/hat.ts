@@ -22,7 +22,14 @@ export const HAT_PROPORTIONS = {
   source: "(memory) common practice in hat patterns",
 } as const;
 
+export type HatStyle = "beanie" | "folded-brim" | "tall";
+
 export interface HatSpec {
+  /** beanie: fitted (height a share of the head); tall: the standard's hat height, some slouch;
+   * folded-brim: the standard's height as worn, the brim knitted twice as deep and folded up */
+  style: HatStyle;
+  /** the standard's hat height for this head (see getHatHeightCm), for the tall and folded styles */
+  standardHeightCm: number;
   headCircumferenceCm: number;
   hatHeightCm?: number;
   brimLengthCm?: number;
@@ -86,6 +93,12 @@ export function getHatCastOn(targetCm: number, perCm: number, repeat: number, mi
   return best && { around: best.around, sectors: best.sectors };
 }
 
+const STYLE_WORDS: Record<HatStyle, string> = {
+  beanie: "A fitted beanie",
+  tall: "A taller hat with some slouch",
+  "folded-brim": "A hat with a folded brim",
+};
+
 export function sizeHat(spec: HatSpec): TemplateOutput {
   const P = HAT_PROPORTIONS;
   const spc = spec.gauge.stitchesPer10cm / 10;
@@ -98,10 +111,15 @@ export function sizeHat(spec: HatSpec): TemplateOutput {
   getCastOn(targetCm, spc, spec.repeat, "repeat", "hat");
   const chosen = getHatCastOn(targetCm, spc, spec.repeat) ?? getHatCastOn(targetCm, spc, spec.repeat, 2);
   const around = chosen?.around ?? nearestMultiple(targetCm * spc, lcm(2, spec.repeat));
-  const heightCm = spec.hatHeightCm ?? roundTo(P.heightPerHead * spec.headCircumferenceCm, 0.1);
-  if (spec.hatHeightCm === undefined) derived.hatHeightCm = heightCm;
+  const folded = spec.style === "folded-brim";
+  // brimCm is the brim as worn; a folded brim is knitted twice as deep and turned up over itself.
   const brimCm = spec.brimLengthCm ?? roundTo(P.brimPerHead * spec.headCircumferenceCm, 0.1);
   if (spec.brimLengthCm === undefined) derived.brimLengthCm = brimCm;
+  // hatHeightCm is the knitted height, brim edge to crown, unfolded (a folded brim adds its turn-up).
+  const styleHeight =
+    spec.style === "beanie" ? P.heightPerHead * spec.headCircumferenceCm : spec.standardHeightCm + (folded ? brimCm : 0);
+  const heightCm = spec.hatHeightCm ?? roundTo(styleHeight, 0.1);
+  if (spec.hatHeightCm === undefined) derived.hatHeightCm = heightCm;
 
   if (around < 16) {
     throw new SizingError("gauge.stitchesPer10cm", `only ${around} sts around a hat at this gauge: too few to shape a crown`);
@@ -127,7 +145,8 @@ export function sizeHat(spec: HatSpec): TemplateOutput {
   const everyRound = perSector - 1 - alternate;
 
   const totalRows = getRows(heightCm, rpc);
-  const brimRows = getRows(brimCm, rpc);
+  const brimRows = getRows(folded ? 2 * brimCm : brimCm, rpc);
+  const foldRows = folded ? Math.floor(brimRows / 2) : 0;
   const bodyRows = totalRows - brimRows - crownRows;
   if (bodyRows < 1) {
     throw new SizingError(
@@ -176,9 +195,11 @@ export function sizeHat(spec: HatSpec): TemplateOutput {
 
   const write = (u: UnitWriter): string[] => {
     const lines = [
-      `Gauge: ${u.gauge(spec.gauge)}.`,
+      `Gauge: ${u.gauge(spec.gauge)}. ${STYLE_WORDS[spec.style]}, ${u.len((brimRows + bodyRows + crownRows - foldRows) / rpc)} from the brim to the crown as worn.`,
       `Cast on ${around} sts and join to work in the round (finished ${u.len(around / spc)} around).`,
-      `Brim: work ${brimRows} rnds (${u.len(brimRows / rpc)}) of ${ribFor(around)}.`,
+      folded
+        ? `Brim: work ${brimRows} rnds (${u.len(brimRows / rpc)}) of ${ribFor(around)}; it is folded up in half when worn (${u.len(foldRows / rpc)} deep).`
+        : `Brim: work ${brimRows} rnds (${u.len(brimRows / rpc)}) of ${ribFor(around)}.`,
       `Body: work ${bodyRows} rnds (${u.len(bodyRows / rpc)}) in stockinette or the band chart, to ${u.len((brimRows + bodyRows) / rpc)} from the cast-on edge.`,
     ];
     if (start !== around) {
@@ -194,12 +215,13 @@ export function sizeHat(spec: HatSpec): TemplateOutput {
   return {
     castOn: around,
     counts: { around, crownStart: start, crownSectors: sectors, perSector, crownTop: cur },
-    rows: { brim: brimRows, body: bodyRows, crown: crownRows, total: brimRows + bodyRows + crownRows },
+    rows: { brim: brimRows, body: bodyRows, crown: crownRows, total: brimRows + bodyRows + crownRows, ...(folded ? { brimFold: foldRows } : {}) },
     charts,
     pieces,
     finished: {
       circumference: toLength(around / spc),
       height: toLength((brimRows + bodyRows + crownRows) / rpc),
+      wornHeight: toLength((brimRows + bodyRows + crownRows - foldRows) / rpc),
     },
     derived,
     recipe: { metric: write(METRIC), imperial: write(IMPERIAL) },
