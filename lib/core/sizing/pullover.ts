@@ -208,7 +208,7 @@ export function sizePullover(spec: PulloverSpec): TemplateOutput {
   });
   const neckSts = yokeCounts[3];
   const shortRows = spec.backNeckShortRows ? planBackNeckShortRows(neckSts, getRows(P.backNeckRaiseCm, rpc)) : null;
-  if (shortRows) yokeT.partial(shortRows.stitches);
+  if (shortRows) yokeT.partial(shortRows.stitches, shortRows.rowLengths);
   yokeT.plain(neckRows);
   const headCheckCm = spec.headCircumferenceCm ?? spec.assumedHead.cm;
   if ((neckSts / spc) * P.neckStretch < headCheckCm - 1e-9) {
@@ -267,7 +267,7 @@ export function sizePullover(spec: PulloverSpec): TemplateOutput {
   const pieces: Piece[] = [
     { name: "body", quantity: 1, start: "long-tail", castOn: body, castOnWidthCm: roundTo(body / spc, 0.1), bindOff: 0, stitches: bodyT.total, rounds: bodyT.counts },
     { name: "sleeve", quantity: 2, start: "long-tail", castOn: cuff, castOnWidthCm: roundTo(cuff / spc, 0.1), bindOff: 0, stitches: sleeveT.total, rounds: sleeveT.counts },
-    { name: "yoke", quantity: 1, start: "joined", castOn: 0, castOnWidthCm: 0, bindOff: neckSts, stitches: yokeT.total, rounds: yokeT.counts },
+    { name: "yoke", quantity: 1, start: "joined", castOn: 0, castOnWidthCm: 0, bindOff: neckSts, stitches: yokeT.total, rounds: yokeT.counts, ...(yokeT.shortRows.length ? { shortRows: yokeT.shortRows } : {}) },
   ];
 
   const write = (u: UnitWriter): string[] => {
