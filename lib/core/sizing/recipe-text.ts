@@ -29,7 +29,7 @@ export const IMPERIAL: UnitWriter = {
 /** A rib that closes neatly in the round on n stitches. */
 export function ribFor(n: number): string {
   if (n % 4 === 0) return "k2, p2 rib";
-  if (n % 2 === 0) return "k1, p1 rib";
+  if (n % 2 === 0) return "k1, p1 rib (a k2, p2 rib needs a multiple of 4 sts to close)";
   return "k1, p1 rib, ending k1 (two knit stitches meet at the start of the round)";
 }
 

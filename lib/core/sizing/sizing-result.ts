@@ -18,6 +18,13 @@ export interface ChartArea {
   /** stitches the area holds on one piece, shaping included: what yarn estimates subtract */
   stitches: number;
   note: string;
+  /** round of its piece (from 0, from the cast-on or pick-up) where the chart's row 1 is worked */
+  fromRound?: number;
+  /** stitches of one repeat in shape on each chart row, from row 1 (fewer than width where it narrows) */
+  rowStitches?: number[];
+  /** where a narrower row's stitches sit in the chart: centred (decreases at both edges), at the
+   * sector's start (decreases at its end in knitting order), or spread evenly */
+  narrowing?: "edges" | "sector end" | "even";
 }
 
 /** One knitted piece, for yarn estimates: its stitch count integrates every round's count. */
@@ -33,12 +40,18 @@ export interface Piece {
   bindOff: number;
   /** every stitch knitted in one piece */
   stitches: number;
+  /** stitches of each round after its shaping, from the first round; with `shortRows` they sum to `stitches` */
+  rounds?: number[];
+  /** rows worked back and forth over part of the round (back-neck short rows): each row's stitches, after which round */
+  shortRows?: { afterRound: number; stitches: number[] }[];
 }
 
 export interface SizingResult {
   garment: GarmentKind;
   /** the standard size used, when one was picked */
   size: string | null;
+  /** hats: beanie | folded-brim | tall; pullovers: yoke | bands (absent for mittens) */
+  style?: string;
   /** main circumference count: hand, head or chest */
   castOn: number;
   counts: Record<string, number>;

@@ -4,6 +4,8 @@ export class Tally {
   total = 0;
   rows = 0;
   current: number;
+  /** stitches of each round, in order (what the garment model reads) */
+  counts: number[] = [];
   constructor(start: number) {
     this.current = start;
   }
@@ -12,12 +14,21 @@ export class Tally {
     if (n <= 0) return;
     this.total += n * this.current;
     this.rows += n;
+    for (let i = 0; i < n; i++) this.counts.push(this.current);
   }
   /** one shaping round leaving `after` stitches */
   shape(after: number): void {
     this.current = after;
     this.total += after;
     this.rows += 1;
+    this.counts.push(after);
+  }
+  /** rows that are not whole rounds (short rows), each row's stitches, after which round */
+  shortRows: { afterRound: number; stitches: number[] }[] = [];
+  /** stitches worked in partial rows (short rows) that are not whole rounds; `rows` lists each row's */
+  partial(stitches: number, rows: number[] = [stitches]): void {
+    this.total += stitches;
+    this.shortRows.push({ afterRound: this.counts.length, stitches: rows });
   }
   /** stitches put on hold or cast on between rounds (no yarn knitted) */
   set(count: number): void {
