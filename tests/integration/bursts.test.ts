@@ -107,6 +107,8 @@ async function burst<T>(label: string, n: number, call: (i: number) => Promise<T
   })();
   const results = await calls;
   const wall = performance.now() - t0;
+  // Out of reach of other files' outbox runs until this test has checked it (afterEach removes it).
+  await db.update(outboxMessages).set({ nextAttemptAt: new Date(Date.now() + 3_600_000) }).where(inArray(outboxMessages.studioId, studiosMade));
   running = false;
   await prober;
   const after = await healthGET();
