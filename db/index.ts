@@ -31,7 +31,7 @@ export function inTransaction(): boolean {
 export class PooledQueryInTransactionError extends Error {
   constructor() {
     super(
-      "A query went to the shared pool (`db`) while this request holds an open transaction. Pass the transaction's `tx` " +
+      "A query (or a nested db.transaction) went to the shared pool (`db`) while this request holds an open transaction. Pass the transaction's `tx` " +
         "down to every read and write inside it (helpers take `q: Executor`), and do pooled work before or after the " +
         "transaction: a transaction waiting for a second connection deadlocks the app under load.",
     );

@@ -49,11 +49,13 @@ export async function enqueueMail(mail: QueuedMail, tx: Executor = db): Promise<
 }
 
 async function toMailMessage(row: OutboxMessage): Promise<MailMessage> {
-  const { renderMailAttachment } = await import("./mail-attachments");
   const attachments: NonNullable<MailMessage["attachments"]> = [];
   for (const a of row.attachments) {
     if (a.base64) attachments.push({ filename: a.filename, contentType: a.contentType, content: Buffer.from(a.base64, "base64") });
-    else if (a.render) attachments.push({ filename: a.filename, contentType: a.contentType, content: await renderMailAttachment(a.render) });
+    else if (a.render) {
+      const { renderMailAttachment } = await import("./mail-attachments"); // the renderers load only when needed
+      attachments.push({ filename: a.filename, contentType: a.contentType, content: await renderMailAttachment(a.render) });
+    }
   }
   return {
     to: row.to,

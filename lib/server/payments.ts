@@ -233,8 +233,10 @@ export async function issueDocument(
     .limit(1);
   if (!v) throw conflict("This commission has no accepted quote to invoice.");
   const q = v.result as unknown as Quote;
-  const n = await allocateDocumentNumber(tx, c.studioId, opts.kind);
   const paid = await paidSoFar(tx, c.id);
+  // The studio's counter row stays locked until commit and every issue of the studio queues on it:
+  // take it last, so the queue moves as fast as it can.
+  const n = await allocateDocumentNumber(tx, c.studioId, opts.kind);
   const content: DocumentContent = {
     number: docNumber(opts.kind, n),
     clientName: c.clientName,
@@ -310,9 +312,9 @@ export async function renderDocumentPdf(doc: Invoice): Promise<Buffer> {
   );
 }
 
-async function enqueueDocumentMail(tx: Tx, doc: Invoice) {
+/** `row`: the mail parties, read before the document is numbered (see issueDocument). */
+async function enqueueDocumentMail(tx: Tx, doc: Invoice, row: Awaited<ReturnType<typeof getCommissionMailParties>>) {
   const k = doc.content as unknown as DocumentContent;
-  const row = await getCommissionMailParties(tx, doc.commissionId);
   const mail = documentMessage({
     kind: doc.kind,
     number: k.number,
@@ -370,8 +372,9 @@ export async function requestBalance(actor: Actor, commissionId: string): Promis
       .values({ studioId: c.studioId, commissionId: c.id, quoteVersionId: v.id, kind: "balance", amountMinor: due, currency: v.currency, idempotencyKey: `checkout-${randomUUID()}` })
       .returning();
     const dueDate = new Date(Date.now() + 14 * 86_400_000).toISOString().slice(0, 10);
+    const parties = await getCommissionMailParties(tx, c.id);
     const doc = await issueDocument(tx, { commissionId: c.id, kind: "invoice", paymentId: p.id, dueDate, payUrl: appUrl(`/portal/commissions/${c.id}#payments`) });
-    await enqueueDocumentMail(tx, doc);
+    await enqueueDocumentMail(tx, doc, parties);
     return { invoiceId: doc.id, paymentId: p.id };
   });
 }
@@ -505,8 +508,9 @@ async function markPaid(tx: Tx, p: Payment, info: { sessionId?: string | null; i
     // Money arrived for a commission that has moved on (e.g. cancelled): keep it and tell the owner.
     await flag(tx, p.commissionId, "payment_out_of_state", { paymentId: p.id, state: c.state });
   }
+  const parties = await getCommissionMailParties(tx, p.commissionId);
   const receipt = await issueDocument(tx, { commissionId: p.commissionId, kind: "receipt", paymentId: p.id, receivedMinor: p.amountMinor, receivedFor: p.kind });
-  await enqueueDocumentMail(tx, receipt);
+  await enqueueDocumentMail(tx, receipt, parties);
   return { paid: p.id, moved: check.ok ? move : null, receipt: receipt.id };
 }
 
