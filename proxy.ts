@@ -6,7 +6,7 @@ import { randomBytes } from "node:crypto";
 import { NextResponse, type NextRequest } from "next/server";
 import { env } from "@/lib/env";
 import { moveForwardingHeaders } from "@/lib/server/client-address";
-import { contentSecurityPolicy, securityHeaders, storageOrigins } from "@/lib/server/security-headers";
+import { checkoutOrigins, contentSecurityPolicy, securityHeaders, storageOrigins } from "@/lib/server/security-headers";
 
 export function proxy(request: NextRequest) {
   const nonce = randomBytes(16).toString("base64");
@@ -14,6 +14,7 @@ export function proxy(request: NextRequest) {
     nonce,
     appUrl: env.BETTER_AUTH_URL,
     storageOrigins: storageOrigins(env.S3_ENDPOINT, env.S3_BUCKET, env.S3_REGION),
+    checkoutOrigins: checkoutOrigins(env.STRIPE_API_URL),
     dev: env.NODE_ENV === "development",
     api: request.nextUrl.pathname.startsWith("/api/"),
   };

@@ -11,7 +11,9 @@
 //   and the charts library set them in server-rendered markup, and a style attribute cannot run script.
 // - images: ours, data:/blob: (chart previews and photo previews made in the browser) and the photo
 //   storage, to which /api/uploads/[id] redirects with a signed URL.
-// - fonts: ours (next/font/local serves them from /_next/static). Fetches, forms, base URI: ours only.
+// - fonts: ours (next/font/local serves them from /_next/static). Fetches and base URI: ours only.
+// - forms: ours, and the payment provider's checkout (a pay button's server action redirects there,
+//   and Chromium applies form-action to a form's redirects when the page is not yet hydrated).
 // - nothing may frame a page (frame-ancestors 'none'); no plugins (object-src 'none').
 
 export interface HeaderOptions {
@@ -20,6 +22,8 @@ export interface HeaderOptions {
   appUrl: string;
   /** S3_ENDPOINT when set; otherwise the public AWS endpoints of the bucket's region */
   storageOrigins: string[];
+  /** the payment provider's hosted checkout, to which the pay buttons' form is redirected */
+  checkoutOrigins: string[];
   dev: boolean;
   /** JSON, PDFs and CSV from /api: no page policy, only framing and sniffing rules */
   api: boolean;
@@ -28,7 +32,7 @@ export interface HeaderOptions {
 export const PERMISSIONS_POLICY =
   "camera=(), microphone=(), geolocation=(), payment=(), usb=(), display-capture=(), fullscreen=(self)";
 
-export function contentSecurityPolicy(o: Pick<HeaderOptions, "nonce" | "appUrl" | "storageOrigins" | "dev">): string {
+export function contentSecurityPolicy(o: Pick<HeaderOptions, "nonce" | "appUrl" | "storageOrigins" | "checkoutOrigins" | "dev">): string {
   const https = new URL(o.appUrl).protocol === "https:";
   const nonce = `'nonce-${o.nonce}'`;
   return [
@@ -42,7 +46,7 @@ export function contentSecurityPolicy(o: Pick<HeaderOptions, "nonce" | "appUrl" 
     "connect-src 'self'",
     "object-src 'none'",
     "base-uri 'self'",
-    "form-action 'self'",
+    ["form-action 'self'", ...o.checkoutOrigins].join(" "),
     "frame-ancestors 'none'",
     ...(https ? ["upgrade-insecure-requests"] : []),
   ].join("; ");
@@ -60,6 +64,11 @@ export function securityHeaders(o: HeaderOptions): Record<string, string> {
   // Only over https: a browser would otherwise refuse plain http to the host for two years.
   if (new URL(o.appUrl).protocol === "https:") out["Strict-Transport-Security"] = "max-age=63072000; includeSubDomains";
   return out;
+}
+
+/** The hosted checkout: the local payments fake when STRIPE_API_URL is set, otherwise Stripe's. */
+export function checkoutOrigins(apiUrl: string | undefined): string[] {
+  return apiUrl ? [new URL(apiUrl).origin] : ["https://checkout.stripe.com"];
 }
 
 /** Where photos are served from (the signed URLs of lib/server/storage.ts). */

@@ -1,7 +1,7 @@
 import { describe, expect, test } from "vitest";
-import { contentSecurityPolicy, securityHeaders, storageOrigins } from "@/lib/server/security-headers";
+import { checkoutOrigins, contentSecurityPolicy, securityHeaders, storageOrigins } from "@/lib/server/security-headers";
 
-const base = { nonce: "abc123==", appUrl: "http://127.0.0.1:3000", storageOrigins: ["http://127.0.0.1:4568"], dev: false, api: false };
+const base = { nonce: "abc123==", appUrl: "http://127.0.0.1:3000", storageOrigins: ["http://127.0.0.1:4568"], checkoutOrigins: ["http://127.0.0.1:12111"], dev: false, api: false };
 const directives = (csp: string) => new Map(csp.split("; ").map((d) => [d.split(" ")[0], d.split(" ").slice(1)] as const));
 
 describe("security headers", () => {
@@ -13,6 +13,7 @@ describe("security headers", () => {
     expect(csp.get("frame-ancestors")).toEqual(["'none'"]);
     expect(csp.get("object-src")).toEqual(["'none'"]);
     expect(csp.get("img-src")).toContain("http://127.0.0.1:4568");
+    expect(csp.get("form-action")).toEqual(["'self'", "http://127.0.0.1:12111"]);
     expect(csp.has("upgrade-insecure-requests")).toBe(false);
   });
 
@@ -39,6 +40,11 @@ describe("security headers", () => {
     }
     // API responses (JSON, PDFs) carry no page policy.
     expect(securityHeaders({ ...base, api: true })["Content-Security-Policy"]).toBe("frame-ancestors 'none'");
+  });
+
+  test("checkout origins: the local payments fake, or Stripe's hosted checkout", () => {
+    expect(checkoutOrigins("http://127.0.0.1:12111/v1")).toEqual(["http://127.0.0.1:12111"]);
+    expect(checkoutOrigins(undefined)).toEqual(["https://checkout.stripe.com"]);
   });
 
   test("storage origins: the configured endpoint, or the bucket's AWS endpoints", () => {
