@@ -29,8 +29,26 @@ export function proxy(request: NextRequest) {
   return response;
 }
 
-// Every request but build assets, so no handler ever sees a client's own X-Forwarded-For. No
-// `missing` conditions: a header a client can add must not switch this off.
+// Next.js buffers the body of every request a proxy runs for (until the whole body has arrived, and
+// cut at experimental.proxyClientMaxBodySize). So the photo uploads, which stream their bodies, are
+// left out, except when a forwarding header arrived: then the proxy must move it aside (and such an
+// upload is buffered, within the limit set in next.config.mjs). Without one, `next start` itself puts
+// the socket's address in X-Forwarded-For. Matching happens on the headers as the client sent them
+// (checked in tests/unit/security/proxy-matcher.test.ts).
+// (Literal on purpose: Next.js reads this config at build time without running it.)
 export const config = {
-  matcher: ["/((?!_next/static|_next/image|favicon.ico).*)"],
+  matcher: [
+    // Everything but build assets and the uploads, always. No `missing` conditions: a header a client can
+    // add must not switch the proxy off.
+    "/((?!_next/static|_next/image|favicon.ico|api/studios/[^/]+/request-photos|api/commissions/[^/]+/uploads|api/production/pieces/[^/]+/photos).*)",
+    { source: "/api/studios/:slug/request-photos", has: [{ type: "header", key: "x-forwarded-for" }] },
+    { source: "/api/studios/:slug/request-photos", has: [{ type: "header", key: "x-darnwell-forwarded-for" }] },
+    { source: "/api/studios/:slug/request-photos", has: [{ type: "header", key: "x-darnwell-client-address" }] },
+    { source: "/api/commissions/:id/uploads", has: [{ type: "header", key: "x-forwarded-for" }] },
+    { source: "/api/commissions/:id/uploads", has: [{ type: "header", key: "x-darnwell-forwarded-for" }] },
+    { source: "/api/commissions/:id/uploads", has: [{ type: "header", key: "x-darnwell-client-address" }] },
+    { source: "/api/production/pieces/:id/photos", has: [{ type: "header", key: "x-forwarded-for" }] },
+    { source: "/api/production/pieces/:id/photos", has: [{ type: "header", key: "x-darnwell-forwarded-for" }] },
+    { source: "/api/production/pieces/:id/photos", has: [{ type: "header", key: "x-darnwell-client-address" }] },
+  ],
 };
