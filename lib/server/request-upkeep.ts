@@ -9,6 +9,7 @@ import { requestDrafts, uploads, usageCounters } from "@/db/schema";
 import { env } from "@/lib/env";
 import { addressKey } from "./client-address";
 import { AppError } from "./errors";
+import { sweepSignInLocks } from "./sign-in-lock";
 import { deleteObjects } from "./storage";
 
 const HOUR = 3_600_000;
@@ -83,7 +84,10 @@ const globalForSweep = globalThis as unknown as { darnwellDraftSweep?: ReturnTyp
 /** Sweeps once an hour in each app instance (the sweep is idempotent); off with the outbox worker. */
 export function startDraftSweeper(intervalMs = HOUR): void {
   if (globalForSweep.darnwellDraftSweep || env.OUTBOX_WORKER === "off") return;
-  const run = () => sweepRequestDrafts().catch((err) => console.error("draft sweep:", (err as Error).message));
+  const run = () => {
+    sweepRequestDrafts().catch((err) => console.error("draft sweep:", (err as Error).message));
+    sweepSignInLocks().catch((err) => console.error("sign-in lock sweep:", (err as Error).message));
+  };
   globalForSweep.darnwellDraftSweep = setInterval(run, intervalMs);
   globalForSweep.darnwellDraftSweep.unref();
   setTimeout(run, 60_000).unref();

@@ -8,7 +8,7 @@ import "server-only";
 // ones, so the answers say nothing about which accounts exist. Common practice (exponential lockout
 // with a notification); the numbers are our choice.
 import { createHash } from "node:crypto";
-import { eq, sql } from "drizzle-orm";
+import { eq, lt, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { signInLocks, user } from "@/db/schema";
 import { env } from "@/lib/env";
@@ -99,4 +99,11 @@ export async function noticeFailedSignIn(email: string, now = new Date()): Promi
   const minutes = Math.max(1, Math.round(lockSeconds(row.locks) / 60));
   const resetUrl = new URL("/forgot-password", env.BETTER_AUTH_URL).toString();
   await enqueueMail({ to: owner.email, ...signInLockedMessage(owner.name, minutes, resetUrl), dedupeKey: `sign-in-lock:${key}:${row.lockedUntil.toISOString()}` });
+}
+
+/** Forgets series idle for longer than the policy remembers them (run by the hourly upkeep). */
+export async function sweepSignInLocks(now = new Date()): Promise<number> {
+  const cutoff = new Date(now.getTime() - LOCK_POLICY.memorySeconds * 1000);
+  const gone = await db.delete(signInLocks).where(lt(signInLocks.lastAttemptAt, cutoff)).returning({ k: signInLocks.emailHash });
+  return gone.length;
 }

@@ -1,13 +1,13 @@
 // Per-account limit on wrong passwords: through the real auth route handler, with a new
 // X-Forwarded-For on every try (what defeated the per-address limit), on the real database and mail.
 import { randomBytes } from "node:crypto";
-import { eq } from "drizzle-orm";
+import { eq, inArray } from "drizzle-orm";
 import { describe, expect, test } from "vitest";
 import { POST } from "@/app/api/auth/[...all]/route";
 import { db } from "@/db";
 import { signInLocks } from "@/db/schema";
 import { moveForwardingHeaders } from "@/lib/server/client-address";
-import { emailKey } from "@/lib/server/sign-in-lock";
+import { emailKey, sweepSignInLocks } from "@/lib/server/sign-in-lock";
 import { BASE, freshEmail, freshIp, makeUser, mailCount, TEST_PASSWORD, waitForMail } from "./helpers";
 
 function attempt(email: string, password: string): Promise<Response> {
@@ -134,5 +134,19 @@ describe("the per-address limit keys on the address no client chooses", () => {
       statuses.push(res.status);
     }
     expect(statuses).toEqual([401, 401, 401, 401, 401, 429, 429]);
+  });
+});
+
+describe("upkeep", () => {
+  test("series idle for longer than a day are forgotten; recent ones stay", async () => {
+    const old = emailKey(freshEmail("old-series"));
+    const recent = emailKey(freshEmail("recent-series"));
+    await db.insert(signInLocks).values([
+      { emailHash: old, attempts: 7, locks: 3, lastAttemptAt: new Date(Date.now() - 25 * 3600_000) },
+      { emailHash: recent, attempts: 2, locks: 0, lastAttemptAt: new Date(Date.now() - 3600_000) },
+    ]);
+    expect(await sweepSignInLocks()).toBeGreaterThanOrEqual(1);
+    const left = await db.select({ k: signInLocks.emailHash }).from(signInLocks).where(inArray(signInLocks.emailHash, [old, recent]));
+    expect(left.map((r) => r.k)).toEqual([recent]);
   });
 });
