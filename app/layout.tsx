@@ -1,5 +1,6 @@
 import type { Metadata, Viewport } from "next";
 import localFont from "next/font/local";
+import { connection } from "next/server";
 import type { ReactNode } from "react";
 import { SiteHeader } from "@/components/shell/site-header";
 import "./globals.css";
@@ -27,7 +28,8 @@ export const metadata: Metadata = {
 
 export const viewport: Viewport = { width: "device-width", initialScale: 1, themeColor: "#FBF8F2" };
 
-export default function RootLayout({ children }: { children: ReactNode }) {
+export default async function RootLayout({ children }: { children: ReactNode }) {
+  await connection(); // every page per request: the CSP nonce (proxy.ts) is new each time
   return (
     <html lang="en-GB" className={`${body.variable} ${display.variable}`}>
       <body className="flex min-h-screen flex-col">

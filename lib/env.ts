@@ -29,8 +29,10 @@ const schema = z.object({
   STRIPE_API_URL: url.optional(),
   /** The outbox worker runs inside each app instance unless turned off (tests drive it by hand). */
   OUTBOX_WORKER: z.enum(["on", "off"]).default("on"),
-  /** Reference photos signed-out visitors may add to one studio's request drafts per hour. */
+  /** Reference photos signed-out visitors from one address may add to request drafts per hour. */
   DRAFT_PHOTO_HOURLY_LIMIT: z.coerce.number().int().positive().default(60),
+  /** Reference photos one signed-out visitor (one draft token) may add per hour. */
+  DRAFT_PHOTO_VISITOR_HOURLY_LIMIT: z.coerce.number().int().positive().default(20),
   /** Request drafts not touched for this many days are removed, with their photos. */
   DRAFT_MAX_AGE_DAYS: z.coerce.number().int().positive().default(30),
   /** Database pool per app instance: size, how long a request waits for a free connection before it
@@ -42,6 +44,12 @@ const schema = z.object({
   DB_IDLE_IN_TRANSACTION_TIMEOUT_MS: z.coerce.number().int().min(100).max(3_600_000).default(15_000),
   /** A query on the shared pool while the same request holds an open transaction throws (default: on in tests). */
   DB_TX_GUARD: z.enum(["on", "off"]).optional(),
+  /** Reverse proxies (addresses or CIDR ranges, comma-separated) whose X-Forwarded-For is believed; none by default. */
+  TRUSTED_PROXIES: z
+    .string()
+    .default("")
+    .transform((s) => s.split(",").map((p) => p.trim()).filter(Boolean))
+    .pipe(z.array(z.union([z.ipv4(), z.ipv6(), z.cidrv4(), z.cidrv6()], { error: "TRUSTED_PROXIES lists addresses or CIDR ranges" }))),
   /** Set by the scripts when the database is the local demo one; demo accounts exist only then. */
   DARNWELL_DEMO: z.enum(["0", "1"]).default("0"),
 });

@@ -1,6 +1,9 @@
+import { headers } from "next/headers";
 import { notFound } from "next/navigation";
 import { PageTitle } from "@/components/ui/card";
 import { env } from "@/lib/env";
+import { requestClientAddress } from "@/lib/server/client-address";
+import { localInboxRefusal } from "@/lib/server/local-inbox-gate";
 
 export const dynamic = "force-dynamic";
 export const metadata = { title: "Local inbox" };
@@ -14,10 +17,12 @@ interface Caught {
   links: string[];
 }
 
-// Exists only while mail goes to the local mail service (the default of `npm start`).
+// Exists only while mail goes to the local mail service (the default of `npm start`), the app runs on
+// a loopback address and the request comes from this machine (lib/server/local-inbox-gate.ts).
 export default async function LocalInbox() {
+  const h = await headers();
   const api = env.LOCAL_MAIL_API;
-  if (!api) notFound();
+  if (!api || localInboxRefusal({ localMailApi: api, appUrl: env.BETTER_AUTH_URL, client: requestClientAddress(h), host: h.get("host") })) notFound();
   let messages: Caught[] = [];
   let failed = false;
   try {

@@ -7,3 +7,4 @@ export * from "./quotes";
 export * from "./journey";
 export * from "./payments";
 export * from "./production";
+export * from "./limits";

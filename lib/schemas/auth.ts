@@ -56,6 +56,7 @@ export function safeNext(value: string | undefined | null, fallback = "/home"): 
 
 /** Messages for better-auth's error codes, in our words. */
 export function authErrorMessage(code: string | undefined, status?: number): string {
+  if (code === "ACCOUNT_LOCKED") return "Too many wrong passwords for this account. Wait a few minutes, or sign in with an e-mail link instead.";
   if (status === 429) return "Too many attempts from here. Wait a minute and try again.";
   switch (code) {
     case "INVALID_EMAIL_OR_PASSWORD":

@@ -1,5 +1,6 @@
 import "server-only";
 import { betterAuth } from "better-auth";
+import { APIError, createAuthMiddleware, isAPIError } from "better-auth/api";
 import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { nextCookies } from "better-auth/next-js";
 import { magicLink } from "better-auth/plugins/magic-link";
@@ -7,7 +8,9 @@ import { db } from "@/db";
 import { account, rateLimit, session, user, verification } from "@/db/schema";
 import { env } from "@/lib/env";
 import { magicLinkMessage, resetPasswordMessage, verifyEmailMessage } from "@/templates/email/auth";
+import { CLIENT_ADDRESS_HEADER } from "./client-address";
 import { enqueueMail } from "./outbox";
+import { clearSignInAttempts, noticeFailedSignIn, recordSignInAttempt } from "./sign-in-lock";
 
 import { PASSWORD_MIN } from "@/lib/schemas/auth";
 export { PASSWORD_MIN };
@@ -64,7 +67,33 @@ function createAuth() {
     advanced: {
       // Tests run with NODE_ENV=test, where better-auth would skip the check by default.
       disableOriginCheck: false,
-      ipAddress: { ipAddressHeaders: ["x-forwarded-for", "x-real-ip"] },
+      // Set by app/api/auth/[...all]/route.ts from clientAddress() (TRUSTED_PROXIES), replacing any
+      // value a client sends; x-forwarded-for only for in-process calls (tests), where no client exists.
+      ipAddress: { ipAddressHeaders: [CLIENT_ADDRESS_HEADER, "x-forwarded-for"] },
+    },
+    hooks: {
+      // Wrong passwords per account (lib/server/sign-in-lock.ts), whatever address they come from.
+      before: createAuthMiddleware(async (ctx) => {
+        const email = signInEmailOf(ctx.path, ctx.body);
+        if (!email) return;
+        const refused = await recordSignInAttempt(email);
+        if (refused) {
+          throw new APIError(
+            "TOO_MANY_REQUESTS",
+            { code: "ACCOUNT_LOCKED", message: "Too many wrong passwords for this account. Wait and try again, or sign in with an e-mail link." },
+            { "Retry-After": String(refused.retryAfterSeconds) },
+          );
+        }
+      }),
+      after: createAuthMiddleware(async (ctx) => {
+        const email = signInEmailOf(ctx.path, ctx.body);
+        if (!email) return;
+        const returned = ctx.context.returned;
+        const failed = isAPIError(returned) && returned.body?.code === "INVALID_EMAIL_OR_PASSWORD";
+        // EMAIL_NOT_VERIFIED comes only after the password matched: that ends the series too.
+        if (!isAPIError(returned) || returned.body?.code === "EMAIL_NOT_VERIFIED") await clearSignInAttempts(email);
+        else if (failed) await noticeFailedSignIn(email);
+      }),
     },
     plugins: [
       magicLink({
@@ -75,6 +104,12 @@ function createAuth() {
       nextCookies(), // must stay last
     ],
   });
+}
+
+function signInEmailOf(path: string | undefined, body: unknown): string | null {
+  if (path !== "/sign-in/email" || !body || typeof body !== "object") return null;
+  const email = (body as { email?: unknown }).email;
+  return typeof email === "string" && email.length <= 320 ? email : null;
 }
 
 export type Auth = ReturnType<typeof createAuth>;

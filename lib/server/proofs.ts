@@ -11,6 +11,7 @@ import { diffProofCharts, type ChartDiff } from "@/lib/core/proofs";
 import { env } from "@/lib/env";
 import type { RequestChangesInput } from "@/lib/schemas/proofs";
 import { proofAnsweredMessage, proofReadyMessage } from "@/templates/email/journey";
+import { requestClientAddress } from "./client-address";
 import { assertCan, memberRole, type Actor } from "./authz";
 import { renderPreviewPng } from "./chart-png";
 import { AppError, conflict, notFound, nullIfNotFound } from "./errors";
@@ -129,9 +130,10 @@ async function lockOpenProof(tx: Tx, proofId: string, commissionId: string, seen
   return cur;
 }
 
+/** Recorded with a decision: the one address helper (a client cannot choose it), not X-Forwarded-For as sent. */
 function clientIpFrom(h: Headers | null): string | null {
-  const fwd = h?.get("x-forwarded-for")?.split(",")[0]?.trim();
-  return (fwd || h?.get("x-real-ip")?.trim() || null)?.slice(0, 64) ?? null;
+  const a = h ? requestClientAddress(h) : "unknown";
+  return a === "unknown" ? null : a;
 }
 
 export async function approveProof(actor: Actor, proofId: string, seenHash: string, requestHeaders: Headers | null) {

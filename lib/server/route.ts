@@ -5,6 +5,7 @@ import { z } from "zod";
 import { requireActor, type Actor } from "./authz";
 import { BUSY_RETRY_AFTER_SECONDS, busyError } from "./db-busy";
 import { AppError, validationError } from "./errors";
+import { refuseCrossSite } from "./request-guard";
 
 type Ctx<P, B, Q> = { req: Request; actor: Actor; params: P; body: B; query: Q };
 
@@ -41,6 +42,8 @@ export function route<
   handler: (ctx: Ctx<z.output<P>, z.output<B>, z.output<Q>>) => Promise<unknown>,
 ) {
   return async (req: Request, context: { params: Promise<Record<string, string | string[]>> }) => {
+    const refused = refuseCrossSite(req, { jsonBody: Boolean(spec.body) });
+    if (refused) return refused;
     try {
       const actor = await requireActor(req.headers);
       const rawParams = context?.params ? await context.params : {};

@@ -49,3 +49,17 @@ export function invitationMessage(studioName: string, inviterName: string, url: 
     action: { label: "Accept the invitation", url },
   });
 }
+
+/** Sent once per lock when wrong passwords for this address keep arriving. */
+export function signInLockedMessage(name: string, minutes: number, resetUrl: string) {
+  return renderEmail({
+    subject: "Password sign-in to your Darnwell account is paused",
+    heading: "Several wrong passwords were tried",
+    paragraphs: [
+      `Hello ${name},`,
+      `Someone tried to sign in to your account with wrong passwords several times, so signing in with a password is paused for ${minutes} minute${minutes === 1 ? "" : "s"}. Each further wrong password pauses it for longer.`,
+      "If it was you, wait and try again, or sign in with an e-mail link instead. If it was not you, your account is safe as long as your password is not used elsewhere; choosing a new one is a good idea.",
+    ],
+    action: { label: "Choose a new password", url: resetUrl },
+  });
+}

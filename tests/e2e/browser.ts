@@ -26,10 +26,38 @@ export async function launch(): Promise<Browser> {
 
 export const PHONE = { viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true };
 
+// Every page of the app runs under its Content-Security-Policy (proxy.ts): a violation fails the test.
+// Chromium reports each one as a console error and as a `securitypolicyviolation` event.
+const CSP_MARK = "[csp-violation]";
+const violations = new WeakMap<Page, string[]>();
+
+async function watchCsp(context: BrowserContext): Promise<void> {
+  await context.addInitScript((mark: string) => {
+    document.addEventListener("securitypolicyviolation", (e) => {
+      console.error(`${mark} ${e.effectiveDirective} blocked ${e.blockedURI || "inline"} at ${e.sourceFile}:${e.lineNumber}`);
+    });
+  }, CSP_MARK);
+  context.on("page", (page) => {
+    violations.set(page, []);
+    page.on("console", (msg) => {
+      const text = msg.text();
+      if (msg.type() === "error" && (text.startsWith(CSP_MARK) || text.includes("Content Security Policy"))) {
+        violations.get(page)!.push(`${page.url()}: ${text}`);
+      }
+    });
+  });
+}
+
+/** Fails the test if the page has reported any Content-Security-Policy violation so far. */
+export function expectNoCspViolations(page: Page): void {
+  expect(violations.get(page) ?? [], "Content-Security-Policy violations").toEqual([]);
+}
+
 export async function newPage(browser: Browser, opts: Parameters<Browser["newContext"]>[0] = {}): Promise<{ context: BrowserContext; page: Page }> {
   const context = await browser.newContext({ baseURL: BASE, ...opts });
   context.setDefaultTimeout(20_000);
   context.setDefaultNavigationTimeout(30_000);
+  await watchCsp(context);
   const page = await context.newPage();
   return { context, page };
 }
@@ -44,6 +72,7 @@ export async function withPage(
   const { context, page } = await newPage(browser, opts);
   try {
     await body(page);
+    for (const p of context.pages()) expectNoCspViolations(p);
   } catch (err) {
     mkdirSync("test-results/e2e", { recursive: true });
     await page
@@ -62,10 +91,12 @@ interface AxeViolation {
   nodes: { target: string[] }[];
 }
 
-/** Fails the test on any serious or critical accessibility violation on the current page. */
+/** Fails the test on any serious or critical accessibility violation (or CSP violation) on the current page. */
 export async function expectAccessible(page: Page): Promise<void> {
   await page.waitForLoadState("load");
-  await page.addScriptTag({ content: axeSource });
+  expectNoCspViolations(page);
+  // Evaluated through the DevTools protocol: a <script> tag would (rightly) be refused by the page's CSP.
+  await page.evaluate(`${axeSource}\n;void 0`);
   const violations = (await page.evaluate(async () => {
     const axe = (window as unknown as { axe: { run: (ctx: Document, opts: unknown) => Promise<{ violations: unknown[] }> } }).axe;
     const r = await axe.run(document, { runOnly: { type: "tag", values: ["wcag2a", "wcag2aa", "wcag21a", "wcag21aa", "best-practice"] } });

@@ -111,18 +111,21 @@ describe("forms, public pages and errors", () => {
 
   test("the local inbox lists caught mail with working links", () =>
     withPage(browser, "local-inbox", async (page) => {
+      // The mail service may hold older reset mail for Elias (an earlier run against it): wait for a new one.
+      const message = page.locator("li", { hasText: "To elias@example.test" }).filter({ hasText: "Reset your Darnwell password" });
+      await page.goto("/local-inbox");
+      const before = await message.count();
       await page.goto("/forgot-password");
       await page.getByLabel("E-mail").fill("elias@example.test");
       await page.getByRole("button", { name: "Send me a reset link" }).click();
       await expect.poll(() => page.getByText("Check your inbox").count(), POLL).toBe(1);
-      // The outbox sends within a few seconds; reload the inbox until Elias's message is there.
-      const message = page.locator("li", { hasText: "To elias@example.test" }).filter({ hasText: "Reset your Darnwell password" });
+      // The outbox sends within a few seconds; reload the inbox until Elias's new message is there (newest first).
       await expect
         .poll(async () => {
           await page.goto("/local-inbox");
           return message.count();
         }, POLL)
-        .toBeGreaterThan(0);
+        .toBeGreaterThan(before);
       await expectAccessible(page);
       await message.first().locator("a[href*='/api/auth/reset-password/']").first().click();
       await page.waitForURL(/\/reset-password\?token=/);

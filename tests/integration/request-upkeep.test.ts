@@ -1,12 +1,12 @@
-// Upkeep of the public request form: signed-out visitors' hourly photo allowance per studio, and the
-// sweep of unfinished drafts with their photos (real PostgreSQL and the local object storage).
+// Upkeep of the public request form: signed-out visitors' hourly photo allowances (per visitor and per
+// address), and the sweep of unfinished drafts with their photos (real PostgreSQL and the local object storage).
 import { randomBytes } from "node:crypto";
 import { eq, inArray } from "drizzle-orm";
 import sharp from "sharp";
 import { beforeAll, describe, expect, test } from "vitest";
 import { db } from "@/db";
 import { requestDrafts, uploads } from "@/db/schema";
-import { assertDraftPhotoAllowance, sweepRequestDrafts } from "@/lib/server/request-upkeep";
+import { sweepRequestDrafts, takeDraftPhotoAllowance } from "@/lib/server/request-upkeep";
 import { addDraftPhoto, saveDraft } from "@/lib/server/requests";
 import { getObject } from "@/lib/server/storage";
 import { storeUpload } from "@/lib/server/uploads";
@@ -26,19 +26,46 @@ async function anonymousPhoto(studioId: string, at?: Date) {
   return row;
 }
 
-describe("signed-out visitors' photo allowance", () => {
-  test("counts this studio's anonymous draft photos of the last hour only, then refuses with 429", async () => {
+describe("signed-out visitors' photo allowances, per visitor and per address", () => {
+  const token = () => randomBytes(24).toString("base64url");
+  const limits = { visitor: 3, address: 5 };
+  // Addresses of this run's own (the counters live in the database for the hour).
+  const ip = () => `198.51.${randomBytes(1)[0]}.${1 + (randomBytes(1)[0] % 250)}`;
+  const refused = (p: Promise<void>) => p.then(() => null, (e: unknown) => e);
+
+  test("one visitor's allowance runs out without touching another visitor's of the same studio", async () => {
     const now = new Date();
-    await anonymousPhoto(w.studioId);
-    await anonymousPhoto(w.studioId);
-    await anonymousPhoto(w.studioId, new Date(now.getTime() - 2 * 3_600_000)); // older than an hour
-    await anonymousPhoto(w.otherStudioId); // another studio's
-    await storeUpload({ studioId: w.studioId, commissionId: null, kind: "reference", uploadedBy: w.clientA.id, bytes: await photo() }); // signed in
-    await expect(assertDraftPhotoAllowance(w.studioId, now, 3)).resolves.toBeUndefined();
-    await anonymousPhoto(w.studioId);
-    const err = await assertDraftPhotoAllowance(w.studioId, new Date(), 3).catch((e: unknown) => e);
-    expect(err).toMatchObject({ status: 429, code: "too_many_uploads" });
-    await expect(assertDraftPhotoAllowance(w.otherStudioId, new Date(), 3)).resolves.toBeUndefined();
+    const greedy = { studioId: w.studioId, visitorToken: token(), address: ip() };
+    for (let i = 0; i < 3; i++) await takeDraftPhotoAllowance(greedy, now, limits);
+    expect(await refused(takeDraftPhotoAllowance(greedy, now, limits))).toMatchObject({ status: 429, code: "too_many_uploads" });
+    // Another visitor (another address) still adds photos to the same studio.
+    await expect(takeDraftPhotoAllowance({ studioId: w.studioId, visitorToken: token(), address: ip() }, now, limits)).resolves.toBeUndefined();
+    // The next hour is a new allowance.
+    await expect(takeDraftPhotoAllowance(greedy, new Date(now.getTime() + 3_600_000), limits)).resolves.toBeUndefined();
+  });
+
+  test("new draft tokens from one address stop at the address's allowance", async () => {
+    const now = new Date();
+    const address = `2001:db8:${randomBytes(2).toString("hex")}:1::5`;
+    const outcomes: unknown[] = [];
+    for (let i = 0; i < 8; i++) {
+      // A new token each time, and another host of the same /64.
+      outcomes.push(await refused(takeDraftPhotoAllowance({ studioId: i % 2 ? w.studioId : w.otherStudioId, visitorToken: token(), address: address.replace(/5$/, String(i)) }, now, limits)));
+    }
+    expect(outcomes.slice(0, 5)).toEqual([null, null, null, null, null]);
+    expect(outcomes.slice(5).every((e) => (e as { status?: number })?.status === 429)).toBe(true);
+  });
+
+  test("a refused photo takes nothing from the visitor's allowance; bursts never exceed it", async () => {
+    const now = new Date();
+    const visitor = { studioId: w.studioId, visitorToken: token(), address: ip() };
+    const results = await Promise.all(Array.from({ length: 12 }, () => refused(takeDraftPhotoAllowance(visitor, now, limits))));
+    expect(results.filter((r) => r === null)).toHaveLength(3);
+    // The address counted only the three taken, so another visitor there still has two.
+    const neighbour = { studioId: w.studioId, visitorToken: token(), address: visitor.address };
+    await expect(takeDraftPhotoAllowance(neighbour, now, limits)).resolves.toBeUndefined();
+    await expect(takeDraftPhotoAllowance(neighbour, now, limits)).resolves.toBeUndefined();
+    expect(await refused(takeDraftPhotoAllowance(neighbour, now, limits))).toMatchObject({ status: 429 });
   });
 });
 

@@ -7,13 +7,17 @@ import { getStudioBySlug } from "@/lib/server/clients";
 import { AppError, notFound } from "@/lib/server/errors";
 import { addDraftPhoto, draftCookieName, loadDraft } from "@/lib/server/requests";
 import { errorResponse } from "@/lib/server/route";
-import { assertDraftPhotoAllowance } from "@/lib/server/request-upkeep";
+import { refuseCrossSite } from "@/lib/server/request-guard";
+import { requestClientAddress } from "@/lib/server/client-address";
+import { takeDraftPhotoAllowance } from "@/lib/server/request-upkeep";
 import { readUploadedFile, storeUpload } from "@/lib/server/uploads";
 import { MAX_REFERENCE_PHOTOS } from "@/lib/schemas/request";
 
 export const dynamic = "force-dynamic";
 
 export async function POST(req: Request, ctx: { params: Promise<{ slug: string }> }) {
+  const refused = refuseCrossSite(req);
+  if (refused) return refused;
   try {
     const { slug } = await ctx.params;
     const studio = await getStudioBySlug(slug);
@@ -26,8 +30,9 @@ export async function POST(req: Request, ctx: { params: Promise<{ slug: string }
       throw new AppError(422, "too_many_photos", `Add at most ${MAX_REFERENCE_PHOTOS} photos.`);
     }
     const actor = await getActor(req.headers);
-    // Signed-out visitors share an hourly allowance per studio, so a script cannot fill the storage.
-    if (!actor) await assertDraftPhotoAllowance(studio.id);
+    // Signed-out visitors have hourly allowances per visitor and per address, so a script cannot fill
+    // the storage and one visitor cannot use up what the studio's other visitors may add.
+    if (!actor) await takeDraftPhotoAllowance({ studioId: studio.id, visitorToken: token, address: requestClientAddress(req.headers) });
     const bytes = await readUploadedFile(req);
     const row = await storeUpload({ studioId: studio.id, commissionId: null, kind: "reference", uploadedBy: actor?.userId ?? null, bytes });
     await addDraftPhoto(studio.id, token, row.id);
