@@ -37,6 +37,7 @@ import {
 } from "@/lib/core/chart";
 import { Button } from "@/components/ui/button";
 import type { ChartArea, SizingResult } from "@/lib/core/sizing";
+import type { RoundReading } from "@/lib/core/garment";
 import { areaShapeMask, hasOutsideCells, matchArea, outsideMessage } from "@/lib/core/design-garment";
 import { Notice } from "@/components/ui/notice";
 import { ChartCanvas, type CellMark } from "./chart-canvas";
@@ -172,6 +173,7 @@ export function ChartEditor(props: ChartEditorProps) {
   const [text, setText] = useState("");
   const [font, setFont] = useState<"5x7" | "3x5">("5x7");
   const [letterBox, setLetterBox] = useState<Rect | null>(null);
+  const [rounds, setRounds] = useState<RoundReading[] | null>(null);
   const [message, setMessage] = useState<{ tone: "error" | "success" | "info"; text: string } | null>(null);
   const [cursor, setCursor] = useState<Point | null>(null);
   const [marks, setMarks] = useState<CellMark[]>([]);
@@ -895,8 +897,8 @@ export function ChartEditor(props: ChartEditorProps) {
           ) : null}
         </section>
 
-        <PlanPanel chart={present} defaults={props.planDefaults} inTheRound={props.inTheRound} onMarks={setMarks} />
-        {props.livePricing ? <LivePrice charts={priceCharts} pricing={props.livePricing} baselineKey={String(openedVersion)} sizing={props.sizing ?? null} sizingNote={props.sizingNote ?? null} /> : null}
+        <PlanPanel chart={present} defaults={props.planDefaults} inTheRound={props.inTheRound} onMarks={setMarks} rounds={rounds} />
+        {props.livePricing ? <LivePrice charts={priceCharts} pricing={props.livePricing} baselineKey={String(openedVersion)} sizing={props.sizing ?? null} sizingNote={props.sizingNote ?? null} onRounds={setRounds} /> : null}
       </div>
 
       <aside className="space-y-4">

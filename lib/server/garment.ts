@@ -5,10 +5,12 @@ import "server-only";
 // settings. Every number the studio is shown for a commission comes from here: the quote draft,
 // production's pieces, the schedule, the yarn estimate and the work sheet. Pure work is in
 // lib/core/design-garment; this module only loads.
-import type { CommissionBrief, DesignChartEntry, GarmentKind } from "@/db/schema";
+import { eq } from "drizzle-orm";
+import { db } from "@/db";
+import { commissions, type CommissionBrief, type DesignChartEntry, type GarmentKind } from "@/db/schema";
 import { parseChart } from "@/lib/core/chart";
 import { parseDesign } from "@/lib/core/chart/layered-design";
-import { readDesignOnGarment, type ChartProblem, type DesignChartOnGarment, type DesignOnGarment } from "@/lib/core/design-garment";
+import { findPaintOutsideShape, matchArea, outsideMessage, readDesignOnGarment, type ChartProblem, type DesignChartOnGarment, type DesignOnGarment } from "@/lib/core/design-garment";
 import { GarmentError } from "@/lib/core/garment";
 import { SizingError, sizeGarment, type SizingResult } from "@/lib/core/sizing";
 import type { PieceFeatures } from "@/lib/core/labour/piece-features";
@@ -124,4 +126,35 @@ export function standardGarmentPieces(garment: GarmentKind): PieceFeatures[] {
   const kind = coreGarment(garment);
   const sizing = sizeGarment({ garment: kind, size: STANDARD_SIZE[kind], gauge: DEFAULT_SIZING_GAUGE });
   return readDesignOnGarment(sizing, [], { proofRounds: 1 }).pieces;
+}
+
+/**
+ * Refuses (422, nothing saved) charts that paint a cell outside their area's shape on the
+ * commission's garment, naming the place as a knitter reads it. Charts whose area or size does
+ * not match the sizing are not checked here (the quote and live price report them).
+ */
+export async function assertChartsInShape(commissionId: string | null, entries: DesignChartEntry[]): Promise<void> {
+  if (!commissionId || !entries.length) return;
+  const [c] = await db.select({ garment: commissions.garment, brief: commissions.brief, sizing: commissions.sizing }).from(commissions).where(eq(commissions.id, commissionId));
+  if (!c) return;
+  const read = chartsOnGarment(entries);
+  let sizing: SizingResult;
+  try {
+    sizing = commissionSizing(c, read.charts[0]?.chart.gauge).sizing;
+  } catch {
+    return; // a sizing that cannot be modelled is reported where the garment is read
+  }
+  const chartAreas = sizing.charts.map((a) => a.area);
+  const fieldErrors: Record<string, string[]> = {};
+  const messages: string[] = [];
+  read.charts.forEach((entry, k) => {
+    const found = matchArea({ chartAreas }, entry.area);
+    const area = found ? sizing.charts.find((a) => a.area === found.area) : undefined;
+    const at = area ? findPaintOutsideShape(entry.chart, area) : null;
+    if (!at) return;
+    const message = outsideMessage(entry.chart, at.x, at.y);
+    fieldErrors[`charts.${read.indices[k]}.chart`] = [message];
+    messages.push(`${entry.label}: ${message}`);
+  });
+  if (messages.length) throw new AppError(422, "outside_shape", `Nothing was saved. ${messages.join(" · ")}.`, fieldErrors);
 }
