@@ -91,7 +91,7 @@ export async function getQuoteBuilderData(actor: Actor, commissionId: string) {
   // Every stitch of every piece, once: the garment from the sizing with the priced design on it.
   const garment = await getCommissionGarment(c, { settings, priced });
   // A suggestion only: if it cannot be worked out the builder still opens, with the yarn lines to fill in.
-  const yarnEstimate = await getCommissionYarnEstimate(actor, c, priced).catch((err: unknown) => {
+  const yarnEstimate = await getCommissionYarnEstimate(actor, c, priced, garment).catch((err: unknown) => {
     console.error("yarn estimate:", (err as Error).message);
     return null;
   });
