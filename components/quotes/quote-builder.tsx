@@ -14,6 +14,7 @@ import { diffQuotes } from "@/lib/core/pricing/diff-quotes";
 import { explainChange } from "@/lib/core/pricing/explain-change";
 import { formatMoney, minorToDecimalString } from "@/lib/core/pricing/format-money";
 import { majorToMinor } from "@/lib/schemas/money";
+import { formatMinutes } from "@/lib/core/production/time-entries";
 
 interface YarnOption {
   id: string;
@@ -398,6 +399,11 @@ export function QuoteBuilder(props: {
               </table>
               <p className="mt-3 text-sm text-bark">
                 Labour {preview.estimate.totals.p50Hours} h typical, {preview.estimate.totals.p80Hours} h cautious; priced at the {policy.labourPolicy === "p80" ? "cautious (P80)" : "typical (P50)"} figure.
+              </p>
+              {/* Per piece, rounded as production rounds each piece's estimate, so the board shows the same figures. */}
+              <p className="mt-1 text-sm tabular-nums" data-testid="quote-knitting">
+                Knitting (typical): {preview.estimate.pieces.map((p, i) => `${p.label || `piece ${i + 1}`} ${formatMinutes(p.p50Minutes.knitting)}`).join(", ")} (total{" "}
+                {formatMinutes(preview.estimate.pieces.reduce((s, p) => s + p.p50Minutes.knitting, 0))})
               </p>
             </>
           ) : null}

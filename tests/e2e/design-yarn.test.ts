@@ -35,7 +35,7 @@ describe("yarn from the design", () => {
       await expect.poll(() => brown.count(), POLL).toBe(1);
       expect(await brown.textContent()).toMatch(/knitted/);
       expect(await table.getByRole("row", { name: /Rowanberry/ }).textContent()).toMatch(/darned/);
-      expect(await panel.textContent()).toMatch(/Plain parts sized from the brief's measurements/);
+      expect(await panel.textContent()).toMatch(/Every stitch of the hat \(.*\), sized from the brief's measurements/);
       // Remove every yarn line, then let the design fill them back in.
       while ((await page.getByRole("button", { name: /^Remove yarn/ }).count()) > 0) {
         await page.getByRole("button", { name: /^Remove yarn/ }).first().click();

@@ -3,6 +3,7 @@
 // labour model takes them. The same function serves the server (quote draft, production, yarn,
 // work sheet) and the chart editor's live price, so the two can never disagree.
 import type { Chart } from "../chart/model";
+import { planColours } from "../colourwork/colour-plan";
 import { garmentFeatures, garmentFromSizing, GarmentError, placeCharts } from "../garment";
 import type { ChartPlacement, FeatureOptions, Garment, GarmentReading, PlacedGarment } from "../garment";
 import type { PieceFeatures } from "../labour/piece-features";
@@ -65,6 +66,32 @@ export function matchArea(garment: Pick<Garment, "chartAreas">, slug: string): {
 
 const strings = (v: unknown): string[] => (Array.isArray(v) ? v.filter((x): x is string => typeof x === "string") : []);
 
+/** True when some row of the chart holds more than two colours (so something must be darned). */
+function needsDarning(chart: Chart): boolean {
+  for (let y = 0; y < chart.height; y++) {
+    const seen = new Set<number>();
+    for (let x = 0; x < chart.width; x++) seen.add(chart.cells[y * chart.width + x]);
+    if (seen.size > 2) return true;
+  }
+  return false;
+}
+
+/**
+ * The colours a chart darns: the maker's choice when the chart's options name one; else, when a row
+ * holds three colours, the colours the colour plan leaves out of the knitted pair ("choose for me",
+ * as the colour-plan panel does), else none.
+ */
+export function chartDarn(entry: Pick<DesignChartOnGarment, "chart" | "options">): string[] {
+  if (Array.isArray(entry.options?.darn)) return strings(entry.options.darn);
+  if (!needsDarning(entry.chart)) return [];
+  const knit = strings(entry.options?.knit);
+  try {
+    return planColours(entry.chart, { inTheRound: true, ...(knit.length === 2 ? { knit } : {}) }).darn;
+  } catch {
+    return [];
+  }
+}
+
 function placementOf(garment: Garment, entry: DesignChartOnGarment): { placement: ChartPlacement } | { problem: string } {
   const found = matchArea(garment, entry.area);
   if (!found) return { problem: `its area "${entry.area}" is not an area of this ${garment.kind} (${garment.chartAreas.join(", ") || "no charted areas"})` };
@@ -126,7 +153,7 @@ export function readDesignOnGarment(sizing: SizingResult, charts: DesignChartOnG
       return;
     }
     const keys = new Set(entry.chart.palette.map((c) => c.key));
-    const darn = [...new Set([...strings(entry.options?.darn), ...extraDarn])].filter((k) => keys.has(k));
+    const darn = [...new Set([...chartDarn(entry), ...extraDarn])].filter((k) => keys.has(k));
     try {
       placeCharts(garment, [r.placement], { darn });
       ok.push({ index, placement: r.placement, darn });
