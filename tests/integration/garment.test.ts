@@ -122,6 +122,24 @@ describe("one garment behind the quote, production and yarn", () => {
     expect(byHex("#F2EEE4").roles).toEqual(["knitted"]);
   });
 
+  test("the work sheet prints every piece's stitches and, round by round, what is knitted", async () => {
+    const owner = await w.actor(w.owner.id);
+    const { loadStudioSettings } = await import("@/lib/server/settings");
+    const { buildWorkSheet, workSheetGarment } = await import("@/lib/server/work-sheet");
+    const [head] = await db.select().from(designVersions).where(eq(designVersions.id, headId));
+    const sheet = (await workSheetGarment(w.commissionA, w.studioId, head.charts, await loadStudioSettings(w.studioId)))!;
+    expect(sheet.pieces.map((p) => p.name)).toEqual(["left mitten", "right mitten"]);
+    const sized = sizing.pieces.reduce((s, p) => s + p.stitches * p.quantity, 0);
+    expect(sheet.pieces.reduce((s, p) => s + p.stitches, 0)).toBe(sized);
+    expect(sheet.pieces.every((p) => p.plain + p.stranded === p.stitches)).toBe(true);
+    expect(sheet.roundsOf).toBe("left mitten");
+    // The back of hand's rounds knit both colours; the cuff below it only the main colour.
+    expect(sheet.rounds.some((r) => r.knit === "Gull white and Loch blue")).toBe(true);
+    expect(sheet.rounds[0].knit).toBe("Gull white");
+    const pdf = await buildWorkSheet(owner, designId);
+    expect(pdf.pdf.subarray(0, 5).toString()).toBe("%PDF-");
+  });
+
   test("a save that paints outside the shape is refused naming the place, and nothing is saved", async () => {
     const owner = await w.actor(w.owner.id);
     const { chart, back } = backChart(sizing, true);
