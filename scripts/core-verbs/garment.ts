@@ -1,4 +1,4 @@
-// core verb `garment`: { size: <size input>, charts?: [{ area, chart, lettering?, piece?, mirror? }],
+// core verb `garment`: { size: <size input>, charts?: [{ area, chart, lettering?, piece?, mirror? }], pins?,
 // darn?: ["C"], proofRounds?, rates?, p80Factors? } → every piece one by one with its stitches and
 // labour features, what is knitted in each round, yarn per colour, and the labour estimate.
 import { buildGarment, garmentFeatures, placeCharts, readGarmentInput } from "@/lib/core/garment";

@@ -8,7 +8,7 @@ import { chooseRowUnderlay, type UnderlayRow } from "./choose-underlay";
 import { resolveColourPlanOptions, type ResolvedOptions } from "./colourwork-options";
 import { routeChartColour, type ColourRouting } from "./darn-colour";
 import { getDarningMinutes, roundTenth } from "./darning-rates";
-import { getFloatLimitStitches, getRowFloats } from "./row-floats";
+import { getCatchStitches, getFloatLimitStitches, getRowFloats, type CatchAvoid } from "./row-floats";
 
 export interface PairCandidate {
   knit: string[];
@@ -96,7 +96,7 @@ export function buildColourPlan(chart: Chart, o: ResolvedOptions, cache: Routing
   const routing = (c: number) => {
     let r = cache.get(c);
     if (!r) {
-      r = routeChartColour(chart, c, g);
+      r = routeChartColour(chart, c, g, { inTheRound: o.routeInTheRound });
       cache.set(c, r);
     }
     return r;
@@ -164,6 +164,8 @@ function evaluatePair(chart: Chart, pair: number[], diff: number[][], limit: num
   const b = pair.length > 1 ? pair[1] : pair[0];
   const row: UnderlayRow = { fixed: new Int8Array(width), cost0: new Float64Array(width), cost1: new Float64Array(width) };
   const colours = new Uint8Array(width);
+  // Catches are staggered against the row below's, so they do not line up on the right side.
+  let below: CatchAvoid = [new Set(), new Set()];
   for (let y = 0; y < height; y++) {
     let darned = 0;
     for (let k = 0; k < width; k++) {
@@ -179,7 +181,9 @@ function evaluatePair(chart: Chart, pair: number[], diff: number[][], limit: num
       }
     }
     const choice = darned > 0 ? chooseRowUnderlay(row, limit, inTheRound) : fixedColours(row.fixed, colours);
-    catches += getRowFloats(choice, limit, inTheRound).catches;
+    const floats = getRowFloats(choice, limit, inTheRound, below);
+    catches += floats.catches;
+    below = getCatchStitches(floats);
     for (let k = 0; k < width; k++) knitted[y * width + (width - 1 - k)] = choice[k] === 0 ? a : b;
   }
   return { catches, knitted };
@@ -206,9 +210,11 @@ function describePlan(
   let catches = 0;
   let longest = 0;
   const colours = new Uint8Array(width);
+  let below: CatchAvoid = [new Set(), new Set()];
   for (let y = 0; y < height; y++) {
     for (let k = 0; k < width; k++) colours[k] = knitted[y * width + (width - 1 - k)] === pair[0] ? 0 : 1;
-    const f = getRowFloats(colours, limit, o.inTheRound);
+    const f = getRowFloats(colours, limit, o.inTheRound, below);
+    below = getCatchStitches(f);
     catches += f.catches;
     longest = Math.max(longest, f.longest);
     rows.push({

@@ -40,6 +40,8 @@ export const colourPlanOptionsSchema = z
       .refine((pair) => pair[0] !== pair[1], { error: "must name two different colours" })
       .optional(),
     inTheRound: z.boolean().optional(),
+    /** the chart is the whole round: the darning route joins its first and last stitch too (default false) */
+    routeInTheRound: z.boolean().optional(),
     floatLimitStitches: z
       .number()
       .int({ error: (iss) => `must be a whole number of stitches (got ${String(iss.input)})` })
@@ -64,6 +66,8 @@ export interface ResolvedOptions {
   knit: [number, number] | null;
   darn: number[] | null;
   inTheRound: boolean;
+  /** the darning route wraps at the start of the round */
+  routeInTheRound: boolean;
   floatLimitStitches: number;
   floatLimitCm: number;
   carryLimitCm: number;
@@ -124,6 +128,8 @@ function resolve(chart: Chart, o: z.output<typeof darningOptionsSchema>): Resolv
     knit,
     darn,
     inTheRound: o.inTheRound ?? true, // mittens, hats and yokes are knitted in the round
+    // A chart often covers part of a round (a back of hand), so the route wraps only when asked.
+    routeInTheRound: o.routeInTheRound ?? false,
     floatLimitStitches: o.floatLimitStitches ?? DEFAULT_FLOAT_LIMIT_STITCHES,
     floatLimitCm: o.floatLimitCm ?? DEFAULT_FLOAT_LIMIT_CM,
     carryLimitCm: o.carryLimitCm ?? DEFAULT_CARRY_LIMIT_CM,

@@ -46,7 +46,7 @@ export interface ColourRouting {
 }
 
 export function routeChartColour(chart: Chart, colour: number, g: CarryGeometry, options?: RouteOptions): ColourRouting {
-  const set = getStitchSet(chart, colour);
+  const set = getStitchSet(chart, colour, options?.inTheRound ?? false);
   const components = getStitchComponents(set, g);
   const route = routeStitchSet(set, g, options, components);
   return {

@@ -4,7 +4,7 @@
 // stitches cost nothing and others cost their straight distance (every step of any route adds at
 // least one such edge that joins the new stitch to the worked ones).
 import type { CarryGeometry } from "./carry-geometry";
-import type { StitchSet } from "./stitch-set";
+import { stepColumn, type StitchSet } from "./stitch-set";
 
 export interface StitchComponents {
   count: number;
@@ -50,9 +50,9 @@ function joinByOffsets(set: StitchSet, g: CarryGeometry, neighboursOnly: boolean
       const dy = g.dy[o];
       if (dy < 0 || (dy === 0 && dx < 0)) continue;
       if (neighboursOnly && (dx < -1 || dx > 1 || dy > 1)) continue;
-      const nx = x + dx;
+      const nx = stepColumn(set, x, dx);
       const ny = y + dy;
-      if (nx < 0 || ny >= height || nx >= width) continue;
+      if (nx < 0 || ny >= height) continue;
       const j = idAt[ny * width + nx];
       if (j >= 0) unite(parent, i, j);
     }
@@ -115,9 +115,9 @@ export function getComponentCarryBounds(set: StitchSet, g: CarryGeometry, compon
       const dx = g.dx[o];
       const dy = g.dy[o];
       if (dy < 0 || (dy === 0 && dx < 0)) continue;
-      const nx = x + dx;
+      const nx = stepColumn(set, x, dx);
       const ny = y + dy;
-      if (nx < 0 || ny >= height || nx >= width) continue;
+      if (nx < 0 || ny >= height) continue;
       const j = idAt[ny * width + nx];
       if (j < 0) continue;
       const bj = blobs.of[j];

@@ -26,7 +26,7 @@ export interface DarningPlan {
   knit?: string[];
   colours: ColourDarning[];
   totals: DarningTotals;
-  settings: { carryLimitCm: number; tailCm: number; loopCm: number; rates: DarningRates };
+  settings: { carryLimitCm: number; tailCm: number; loopCm: number; rates: DarningRates; routeInTheRound: boolean };
 }
 
 export function planDarning(chart: Chart, options: unknown = {}): DarningPlan {
@@ -44,7 +44,7 @@ export function planDarning(chart: Chart, options: unknown = {}): DarningPlan {
   const yarn = { tailCm: o.tailCm, loopCm };
   const raw = { stitches: 0, strands: 0, ends: 0, carryCm: 0, yarnCm: 0, boundEnds: 0, boundCarry: 0, naiveEnds: 0, naiveCarry: 0 };
   const colours = darn.map((c) => {
-    const r = cache.get(c) ?? routeChartColour(chart, c, g);
+    const r = cache.get(c) ?? routeChartColour(chart, c, g, { inTheRound: o.routeInTheRound });
     raw.stitches += r.set.n;
     raw.strands += r.route.strands.length;
     raw.ends += r.route.ends;
@@ -77,7 +77,7 @@ export function planDarning(chart: Chart, options: unknown = {}): DarningPlan {
         ),
       },
     },
-    settings: { carryLimitCm: o.carryLimitCm, tailCm: o.tailCm, loopCm: roundTenth(loopCm), rates: o.rates },
+    settings: { carryLimitCm: o.carryLimitCm, tailCm: o.tailCm, loopCm: roundTenth(loopCm), rates: o.rates, routeInTheRound: o.routeInTheRound },
   };
   return plan;
 }

@@ -50,7 +50,7 @@ function stretchNeighbours(
     start[k] = to.length;
     let found = 0;
     for (let t = 0; t < g.count && found < limit; t++) {
-      const v = ws.at(xs[ids[k]] + g.dx[t], ys[ids[k]] + g.dy[t]);
+      const v = ws.atOffset(xs[ids[k]], ys[ids[k]], g.dx[t], g.dy[t]);
       if (v < 0) continue;
       to.push(ws.scratch[v]);
       len.push(g.len[t]);

@@ -2,7 +2,7 @@
 // carrying straight to the next stitch when it touches or lies within the limit, and cutting the
 // yarn for a new strand otherwise.
 import { CM_EPSILON, type CarryGeometry } from "./carry-geometry";
-import type { StitchSet } from "./stitch-set";
+import { columnGap, type StitchSet } from "./stitch-set";
 
 // A module-level copy: reading an imported binding in hot loops is slower under some loaders.
 const EPS = CM_EPSILON;
@@ -19,7 +19,7 @@ export function getNaiveRoute(set: StitchSet, g: CarryGeometry): NaiveRoute {
   let strands = 1;
   let carryCm = 0;
   for (let i = 1; i < set.n; i++) {
-    const dx = set.xs[i] - set.xs[i - 1];
+    const dx = columnGap(set, set.xs[i] - set.xs[i - 1]);
     const dy = set.ys[i] - set.ys[i - 1];
     if (dx >= -1 && dx <= 1 && dy >= -1 && dy <= 1) continue;
     const len = Math.hypot(dx * g.w, dy * g.h);

@@ -39,6 +39,11 @@ export interface RouteOptions {
   maxStarts?: number;
   /** improve walks by 2-opt and or-opt moves (default true) */
   improve?: boolean;
+  /**
+   * Worked in the round: the first and last stitch of each row are neighbours, so a motif across
+   * the start of the round is one strand (read when the stitch set is built from a chart).
+   */
+  inTheRound?: boolean;
 }
 
 export function routeStitchSet(

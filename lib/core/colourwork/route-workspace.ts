@@ -11,7 +11,7 @@
 //   even a touching one, is carrying and costs its length.
 import { CM_EPSILON, type CarryGeometry } from "./carry-geometry";
 import { MinHeap } from "./min-heap";
-import type { StitchSet } from "./stitch-set";
+import { columnGap, stepColumn, type StitchSet } from "./stitch-set";
 
 // A module-level copy: reading an imported binding in hot loops is slower under some loaders.
 const EPS = CM_EPSILON;
@@ -38,27 +38,38 @@ export class RouteWorkspace {
     this.stamp = new Int32Array(set.n);
   }
 
+  /** Stitch at (x, y) (in the round x wraps), or -1. */
   at(x: number, y: number): number {
     const s = this.set;
+    if (s.wrap && s.width > 0) x = ((x % s.width) + s.width) % s.width;
     if (x < 0 || y < 0 || x >= s.width || y >= s.height) return -1;
     return s.idAt[y * s.width + x];
   }
 
   touches(p: number, q: number): boolean {
     const { xs, ys } = this.set;
-    const dx = xs[p] - xs[q];
+    const dx = columnGap(this.set, xs[p] - xs[q]);
     const dy = ys[p] - ys[q];
     return dx >= -1 && dx <= 1 && dy >= -1 && dy <= 1;
   }
 
   straightCm(p: number, q: number): number {
     const { xs, ys } = this.set;
-    return Math.hypot((xs[p] - xs[q]) * this.g.w, (ys[p] - ys[q]) * this.g.h);
+    return Math.hypot(columnGap(this.set, xs[p] - xs[q]) * this.g.w, (ys[p] - ys[q]) * this.g.h);
   }
 
   /** Whether one stretch may join p and q. */
   stretchAllowed(p: number, q: number): boolean {
     return this.touches(p, q) || this.straightCm(p, q) <= this.g.limitCm + EPS;
+  }
+
+  /** Stitch reached from (x, y) by one offset of the geometry, or -1 (see stepColumn). */
+  atOffset(x: number, y: number, dx: number, dy: number): number {
+    const s = this.set;
+    const nx = stepColumn(s, x, dx);
+    const ny = y + dy;
+    if (nx < 0 || ny < 0 || ny >= s.height) return -1;
+    return s.idAt[ny * s.width + nx];
   }
 
   /** Unworked stitches among the 8 neighbours of p. */
@@ -104,7 +115,7 @@ export class RouteWorkspace {
     const { dist, prev, stamp, worked, heap } = this;
     const qx = xs[q];
     const qy = ys[q];
-    const guess = (i: number) => Math.hypot((xs[i] - qx) * g.w, (ys[i] - qy) * g.h);
+    const guess = (i: number) => Math.hypot(columnGap(this.set, xs[i] - qx) * g.w, (ys[i] - qy) * g.h);
     heap.clear();
     stamp[p] = epoch;
     dist[p] = 0;
@@ -125,9 +136,9 @@ export class RouteWorkspace {
       const ux = xs[u];
       const uy = ys[u];
       for (let o = 0; o < g.count; o++) {
-        const nx = ux + g.dx[o];
+        const nx = stepColumn(this.set, ux, g.dx[o]);
         const ny = uy + g.dy[o];
-        if (nx < 0 || ny < 0 || nx >= width || ny >= height) continue;
+        if (nx < 0 || ny < 0 || ny >= height) continue;
         const v = idAt[ny * width + nx];
         if (v < 0 || (v !== q && worked[v] === 0 && !anyStitch)) continue;
         const nd = dist[u] + g.len[o];
@@ -158,9 +169,9 @@ export class RouteWorkspace {
     for (let o = 0; o < g.count; o++) {
       const len = g.len[o];
       if (len > best + EPS) break;
-      const nx = x + g.dx[o];
+      const nx = stepColumn(this.set, x, g.dx[o]);
       const ny = y + g.dy[o];
-      if (nx < 0 || ny < 0 || nx >= width || ny >= height) continue;
+      if (nx < 0 || ny < 0 || ny >= height) continue;
       const v = idAt[ny * width + nx];
       if (v < 0 || this.worked[v] !== 0 || (groupOf && groupOf[v] !== group)) continue;
       if (best === Infinity) best = len;
@@ -194,9 +205,9 @@ export class RouteWorkspace {
       const ux = xs[u];
       const uy = ys[u];
       for (let o = 0; o < g.count; o++) {
-        const nx = ux + g.dx[o];
+        const nx = stepColumn(this.set, ux, g.dx[o]);
         const ny = uy + g.dy[o];
-        if (nx < 0 || ny < 0 || nx >= width || ny >= height) continue;
+        if (nx < 0 || ny < 0 || ny >= height) continue;
         const v = idAt[ny * width + nx];
         if (v < 0) continue;
         // Unworked stitches outside the group are neither targets nor ways through.

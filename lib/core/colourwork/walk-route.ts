@@ -6,6 +6,7 @@
 // walk has to carry, it finishes the touching group it is in before it moves on to another.
 import type { StitchComponents } from "./darning-bounds";
 import type { RouteWorkspace } from "./route-workspace";
+import { columnGap } from "./stitch-set";
 
 const RING_DX = [1, 1, 0, -1, -1, -1, 0, 1];
 const RING_DY = [0, 1, 1, 1, 0, -1, -1, -1];
@@ -48,7 +49,7 @@ export class GroupWalker {
     for (let k = 1; k < m; k++) {
       let q = this.chooseNeighbour(p, dir);
       if (q >= 0) {
-        dir = ringIndex(ws.set.xs[q] - ws.set.xs[p], ws.set.ys[q] - ws.set.ys[p]);
+        dir = ringIndex(columnGap(ws.set, ws.set.xs[q] - ws.set.xs[p]), ws.set.ys[q] - ws.set.ys[p]);
       } else {
         const group = groupOf[p];
         let carry = open[group] > 0 ? ws.nearestOpen(p, this.near, groupOf, group) : Infinity;

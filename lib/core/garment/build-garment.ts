@@ -197,3 +197,16 @@ export function findChartArea(garment: Garment, area: string, field: string): Ch
   }
   return found;
 }
+
+/**
+ * The shape of a chart area as the editor shows it: 1 for a cell knitted as a real stitch, 0 for a
+ * cell outside the shape (above a mitten's top decreases, outside a crown sector's narrowing).
+ * Cells are row-major from the bottom row, as in a chart.
+ */
+export function areaShape(garment: Pick<Garment, "sizing" | "chartAreas" | "kind">, area: string): { width: number; height: number; repeats: number; inShape: Uint8Array } {
+  const a = findChartArea(garment as Garment, area, "area");
+  const g = chartGeometry(a);
+  const inShape = new Uint8Array(a.width * a.height);
+  for (let y = 0; y < a.height; y++) for (const x of inShapeColumns(a.width, g.rowStitches[y], g.narrowing)) inShape[y * a.width + x] = 1;
+  return { width: a.width, height: a.height, repeats: a.repeats, inShape };
+}

@@ -47,17 +47,25 @@ interface PartReading {
   rounds: RoundReading[];
 }
 
-/** Frame column (knitting order, from 0) of every stitch of a round. */
-function frameColumns(part: GarmentPart, r: number, areaWidth: (area: string) => number): number[] {
-  const out: number[] = [];
-  for (const span of part.rounds[r].spans) {
-    if (span.row < 0) span.columns.forEach((_, j) => out.push(span.frameStart + j));
-    else {
-      const w = areaWidth(span.area);
-      for (const x of span.columns) out.push(span.frameStart + (w - 1 - x));
+/**
+ * Where each stitch of a round lies on the darning grid: charted stitches only (plain stitches, the
+ * thumb gusset for one, are never darned), laid around the round in knitting order, each repeat
+ * of each area at its chart's full width so the areas line up from round to round. Returns the
+ * column of every stitch (-1 for plain ones) and the width of the round on the grid.
+ */
+function darningColumns(round: GarmentPart["rounds"][number], areaWidth: (area: string) => number): { cols: number[]; width: number } {
+  const cols: number[] = [];
+  let offset = 0;
+  for (const span of round.spans) {
+    if (span.row < 0) {
+      for (let j = 0; j < span.columns.length; j++) cols.push(-1);
+      continue;
     }
+    const w = areaWidth(span.area);
+    for (const x of span.columns) cols.push(offset + (w - 1 - x));
+    offset += w;
   }
-  return out;
+  return { cols, width: offset };
 }
 
 function readPart(
@@ -75,8 +83,10 @@ function readPart(
   const stitchW = getStitchWidthCm(gauge.stitchesPer10cm);
 
   // The planner sees only the colours this part uses (a yarn never used here is never held here).
+  const pins = placed.pins.filter((p) => (p.piece ?? piece.name) === piece.name && (p.part ?? piece.parts[0].name) === part.name);
   const used = new Set<number>();
   for (const row of rows) for (const c of row) used.add(c);
+  for (const p of pins) for (const key of p.pair) used.add(palette.findIndex((q) => q.key === key));
   const local = [...used].sort((a, b) => a - b);
   const toLocal = new Map(local.map((c, i) => [c, i]));
   const darnedHere = placed.darn.filter((c) => used.has(c));
@@ -84,6 +94,7 @@ function readPart(
     { rounds: rows.map((row) => Array.from(row, (c) => toLocal.get(c)!)), palette: local.map((c) => ({ key: palette[c].key, name: palette[c].name, hex: palette[c].hex })), gauge },
     {
       darn: darnedHere.map((c) => palette[c].key),
+      ...(pins.length > 0 ? { pins: pins.map((p) => ({ fromRound: p.fromRound, toRound: p.toRound, pair: p.pair })) } : {}),
       ...(opts.floatLimitStitches !== undefined ? { floatLimitStitches: opts.floatLimitStitches } : {}),
       ...(opts.floatLimitCm !== undefined ? { floatLimitCm: opts.floatLimitCm } : {}),
       ...(opts.carryLimitCm !== undefined ? { carryLimitCm: opts.carryLimitCm } : {}),
@@ -93,9 +104,18 @@ function readPart(
   const keyIndex = new Map(palette.map((p, i) => [p.key, i]));
   const out: PartReading = { plain: 0, stranded: 0, darned: 0, catches: 0, shaping: 0, ends: 0, carryCm: 0, rounds: [] };
   let knitEnds = 0;
+  // Stitches the plan darns: every stitch of a `darn` colour, and in pinned rounds any colour
+  // beside the pinned pair.
+  const darnedMask = plan.rounds.map((pr, r) => {
+    const m = new Uint8Array(rows[r].length);
+    for (const d of pr.darned) m[d.stitch - 1] = 1;
+    return m;
+  });
+  const darnedColours = [...new Set(plan.rounds.flatMap((pr) => pr.darned.map((d) => keyIndex.get(d.colour)!)))].sort((a, b) => a - b);
   plan.rounds.forEach((pr, r) => {
     const row = rows[r];
     const round = part.rounds[r];
+    const isDarned = darnedMask[r];
     const knitted = Uint8Array.from(row);
     for (const d of pr.darned) knitted[d.stitch - 1] = keyIndex.get(d.onto)!;
     // Plain or stranded by area: a run of one area's stitches (one chart row, one repeat) whose
@@ -107,7 +127,7 @@ function readPart(
       let first = -1;
       let two = false;
       for (let j = k; j < k + n; j++) {
-        if (placed.darn.includes(row[j])) continue;
+        if (isDarned[j]) continue;
         if (first < 0) first = row[j];
         else if (row[j] !== first) two = true;
       }
@@ -139,6 +159,7 @@ function readPart(
       shaping: round.shaping,
       knit: pr.knit,
       darned: pr.darned.length,
+      longestFloat: pr.longestFloat,
       catches: pr.catches,
     };
     if (pr.darned.length > 0 || pr.joined.length > 0 || pr.cut.length > 0 || r === 0) reading.why = pr.reason;
@@ -146,29 +167,34 @@ function readPart(
   });
   out.ends += Math.max(0, knitEnds - 2);
 
-  // The darning route on the unrolled rounds, cut open where the fewest darned stitches lie so a
-  // motif across the start of the round is worked as one.
-  if (darnedHere.length > 0) {
-    const F = part.frameWidth;
+  // The darning route on the unrolled rounds, cut open where the fewest darned stitches lie: each
+  // round is turned about that column on its own width, so a motif across the start of the round
+  // is one strand, as worked.
+  if (darnedColours.length > 0) {
     const H = part.rounds.length;
     const widthOf = (area: string) => garment.sizing.charts.find((a) => a.area === area)?.width ?? 0;
-    const frame: { col: number; colour: number }[][] = rows.map((row, r) => {
-      const cols = frameColumns(part, r, widthOf);
-      return Array.from(row, (c, s) => ({ col: cols[s], colour: c })).filter((p) => placed.darn.includes(p.colour));
+    const layout = part.rounds.map((round) => darningColumns(round, widthOf));
+    const D = Math.max(1, ...layout.map((l) => l.width));
+    const perColumn = new Array<number>(D).fill(0);
+    rows.forEach((row, r) => {
+      for (let s2 = 0; s2 < row.length; s2++) if (darnedMask[r][s2]) perColumn[layout[r].cols[s2]] += 1;
     });
-    const perColumn = new Array<number>(F).fill(0);
-    for (const row of frame) for (const p of row) perColumn[p.col] += 1;
     let cut = 0;
-    for (let f = 1; f < F; f++) if (perColumn[f] < perColumn[cut]) cut = f;
-    const chart: Chart = createChart(F, H, gauge, palette, 0);
-    frame.forEach((row, y) => {
-      for (const p of row) {
-        const rotated = (p.col - cut + F) % F;
-        chart.cells[y * F + (F - 1 - rotated)] = p.colour;
+    for (let f = 1; f < D; f++) if (perColumn[f] < perColumn[cut]) cut = f;
+    const chart: Chart = createChart(D, H, gauge, palette, 0);
+    rows.forEach((row, y) => {
+      const { cols, width } = layout[y];
+      for (let s2 = 0; s2 < row.length; s2++) {
+        if (!darnedMask[y][s2]) continue;
+        const rotated = (((cols[s2] - cut) % width) + width) % width;
+        chart.cells[y * D + (D - 1 - rotated)] = row[s2];
       }
     });
+    // Where every round with darned stitches spans the whole grid, its first and last columns meet.
+    const full = layout.every((l, r) => l.width === D || !darnedMask[r].includes(1));
     const darning = planDarning(chart, {
-      darn: darnedHere.map((c) => palette[c].key),
+      darn: darnedColours.map((c) => palette[c].key),
+      ...(full ? { routeInTheRound: true } : {}),
       ...(opts.carryLimitCm !== undefined ? { carryLimitCm: opts.carryLimitCm } : {}),
       ...(opts.tailCm !== undefined ? { tailCm: opts.tailCm } : {}),
       ...(opts.rates ? { rates: pickDarningRates(opts.rates) } : {}),
@@ -228,6 +254,7 @@ export function garmentFeatures(placed: PlacedGarment, opts: FeatureOptions = {}
       tally[main[main.length - 1]?.[0] ?? 0].bindOffCm += getBindOffCm(piece.bindOff * stitchW);
     }
     const first = pi === 0;
+    const joinedIntoAnother = piece.castOn.start !== "joined" && garment.pieces.some((g) => g.castOn.start === "joined");
     return {
       name: piece.name,
       quantity: 1,
@@ -245,6 +272,9 @@ export function garmentFeatures(placed: PlacedGarment, opts: FeatureOptions = {}
         duplicateStitches: darned,
         ends,
         carryCm: roundTenth(carryCm),
+        // pieces joined into another (a pullover's body and sleeves into its yoke) are blocked with
+        // it, once (finishing is still counted per piece: the labour model has no switch for it)
+        blocked: !joinedIntoAnother,
         darnedStitches: darned,
       },
     };

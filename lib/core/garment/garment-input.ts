@@ -27,6 +27,19 @@ export const garmentInputSchema = z.strictObject({
   charts: z.array(chartEntrySchema).max(40).optional(),
   /** palette keys duplicate-stitched afterwards */
   darn: z.array(z.string().min(1)).max(16).optional(),
+  /** the maker's pairs for ranges of rounds: { piece?, part?, fromRound, toRound, pair: ["A", "B"] } */
+  pins: z
+    .array(
+      z.strictObject({
+        piece: z.string().min(1).optional(),
+        part: z.string().min(1).optional(),
+        fromRound: z.number().int().min(1),
+        toRound: z.number().int().min(1),
+        pair: z.tuple([z.string().min(1), z.string().min(1)]),
+      }),
+    )
+    .max(200)
+    .optional(),
   /** proof rounds of the design (default 1) */
   proofRounds: z.number().int().min(0).max(20).optional(),
   rates: partialRatesSchema.optional(),
@@ -72,7 +85,7 @@ export function readGarmentInput(input: unknown): { size: unknown; placements: C
   return {
     size: data.size,
     placements,
-    place: data.darn ? { darn: data.darn } : {},
+    place: { ...(data.darn ? { darn: data.darn } : {}), ...(data.pins ? { pins: data.pins } : {}) },
     features: {
       ...(data.proofRounds !== undefined ? { proofRounds: data.proofRounds } : {}),
       ...(data.rates ? { rates: data.rates } : {}),

@@ -20,12 +20,13 @@ export type {
   PieceReading,
   PlacedGarment,
   PlaceOptions,
+  RoundPinInput,
   RoundReading,
   RoundSpan,
   YarnReading,
 } from "./types";
 export { GarmentError } from "./garment-error";
-export { buildGarment, garmentFromSizing } from "./build-garment";
+export { areaShape, buildGarment, garmentFromSizing, inShapeColumns } from "./build-garment";
 export { placeCharts } from "./place-charts";
 export { garmentFeatures } from "./garment-features";
 export { garmentInputSchema, readGarmentInput, type GarmentInput } from "./garment-input";

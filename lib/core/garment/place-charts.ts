@@ -131,7 +131,12 @@ function checkLettering(p: ChartPlacement, chart: Chart, i: number, pieceName: s
 
 export function placeCharts(garment: Garment, placements: ChartPlacement[], opts: PlaceOptions = {}): PlacedGarment {
   const chosen = chooseCharts(garment, placements);
-  placements.forEach((p, i) => checkOutsideShape(garment, p, i));
+  placements.forEach((p, i) => {
+    checkOutsideShape(garment, p, i);
+    // every layer as given: inside the chart, and set in it reading forwards
+    const first = p.piece ?? garment.pieces.find((g) => g.areas.some((a) => a.name === p.area && a.charted))!.name;
+    checkLettering(p, p.chart, i, first);
+  });
   const { palette, maps } = joinPalettes(placements);
 
   const darn: number[] = [];
@@ -184,7 +189,26 @@ export function placeCharts(garment: Garment, placements: ChartPlacement[], opts
     ),
   );
 
-  const result: PlacedGarment = { garment, palette, darn, colours, placed };
+  const pins = (opts.pins ?? []).map((pin, j) => {
+    const field = `pins[${j}]`;
+    const pieces = pin.piece === undefined ? garment.pieces : garment.pieces.filter((g) => g.name === pin.piece);
+    if (pieces.length === 0) throw new GarmentError(`${field}.piece`, `no piece '${pin.piece}'; the pieces are ${garment.pieces.map((g) => `'${g.name}'`).join(", ")}`);
+    for (const g of pieces) {
+      const part = pin.part === undefined ? g.parts[0] : g.parts.find((q) => q.name === pin.part);
+      if (!part) throw new GarmentError(`${field}.part`, `the ${g.name} has no part '${pin.part}'; its parts are ${g.parts.map((q) => `'${q.name}'`).join(", ")}`);
+      if (!(Number.isInteger(pin.fromRound) && Number.isInteger(pin.toRound) && pin.fromRound >= 1 && pin.toRound >= pin.fromRound && pin.toRound <= part.rounds.length)) {
+        throw new GarmentError(field, `rounds ${pin.fromRound}–${pin.toRound} are not rounds of the ${g.name}'s ${part.name} (1–${part.rounds.length})`);
+      }
+    }
+    pin.pair.forEach((key, k) => {
+      const c = palette.findIndex((q) => q.key === key);
+      if (c < 0) throw new GarmentError(`${field}.pair[${k}]`, `colour '${key}' is in no chart's palette (${palette.map((q) => q.key).join(", ")})`);
+      if (darn.includes(c)) throw new GarmentError(`${field}.pair[${k}]`, `colour '${key}' is also to be darned`);
+    });
+    if (pin.pair[0] === pin.pair[1]) throw new GarmentError(`${field}.pair`, "must name two different colours");
+    return { ...pin, pair: [pin.pair[0], pin.pair[1]] as [string, string] };
+  });
+  const result: PlacedGarment = { garment, palette, darn, pins, colours, placed };
   checkThreeColours(result);
   return result;
 }
@@ -194,7 +218,10 @@ function checkThreeColours(placed: PlacedGarment): void {
   const { garment, palette, darn } = placed;
   garment.pieces.forEach((piece: GarmentPiece, pi) => {
     piece.parts.forEach((part, qi) => {
+      const pinned = (r: number) =>
+        placed.pins.some((p) => (p.piece ?? piece.name) === piece.name && (p.part ?? piece.parts[0].name) === part.name && r + 1 >= p.fromRound && r + 1 <= p.toRound);
       part.rounds.forEach((round, r) => {
+        if (pinned(r)) return; // the maker chose the two knitted there; the others are darned
         const row = placed.colours[pi][qi][r];
         const seen: number[] = [];
         for (let k = 0; k < row.length; k++) {

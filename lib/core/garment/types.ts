@@ -105,6 +105,21 @@ export interface ChartPlacement {
 export interface PlaceOptions {
   /** palette keys duplicate-stitched afterwards (every stitch of these colours is darned) */
   darn?: string[];
+  /** the maker's pairs for ranges of rounds; a pinned round may hold three colours (the rest are darned) */
+  pins?: RoundPinInput[];
+}
+
+/** Two colours the maker wants knitted in a range of rounds of one part. */
+export interface RoundPinInput {
+  /** default: every piece */
+  piece?: string;
+  /** default: the piece's first part (a mitten's hand) */
+  part?: string;
+  /** rounds of the part, from 1, both included */
+  fromRound: number;
+  toRound: number;
+  /** palette keys */
+  pair: [string, string];
 }
 
 /** One colour of the garment: charts' palettes joined by key; index 0 is the main colour. */
@@ -116,6 +131,8 @@ export interface PlacedGarment {
   palette: GarmentColour[];
   /** palette indices of darned colours */
   darn: number[];
+  /** the maker's pinned pairs, checked against the pieces and the palette */
+  pins: RoundPinInput[];
   /** per piece, per part, per round: colour of each stitch in knitting order */
   colours: Uint8Array[][][];
   /** which charts went where, for messages and rendering */
@@ -134,7 +151,7 @@ export interface FeatureOptions {
 }
 
 export interface GarmentPieceFeatures extends Required<Pick<PieceFeatures,
-  "newDesign" | "proofRounds" | "plainStitches" | "strandedStitches" | "floatCatches" | "shapingRounds" | "thumbs" | "duplicateStitches" | "ends" | "carryCm"
+  "newDesign" | "proofRounds" | "plainStitches" | "strandedStitches" | "floatCatches" | "shapingRounds" | "thumbs" | "duplicateStitches" | "ends" | "carryCm" | "blocked"
 >> {
   label: string;
   /** every stitch is knitted first; darned stitches are also counted here over their underlay */
@@ -160,6 +177,8 @@ export interface RoundReading {
   knit: string[];
   /** darned stitches in the round, and their colours */
   darned: number;
+  /** longest float in stitches, and the catches that keep floats within the limit */
+  longestFloat: number;
   catches: number;
   /** said when the pair changes or stitches are darned */
   why?: string;

@@ -39,3 +39,8 @@ export function nearestEven(x: number, min = 2): number {
 export function nearestMultiple(x: number, m: number): number {
   return Math.max(m, m * roundHalfUp(x / m));
 }
+
+/** The smallest multiple of m that is at least x (x a hair over a multiple counts as that multiple). */
+export function ceilMultiple(x: number, m: number): number {
+  return Math.max(m, m * Math.ceil(x / m - TIE_EPSILON));
+}

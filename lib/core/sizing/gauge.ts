@@ -28,6 +28,9 @@ const ROW_LIMIT_PER_10CM = { min: 2, max: 120 };
 
 export interface ResolvedGauge {
   gauge: Gauge;
+  /** the stitch gauge in the unit it was given: per 10 cm (per 10 cm, or a swatch in cm) or per 4 in
+   * (per 4 in, per inch × 4, or a swatch in inches), for comparisons with tables published in both */
+  given: { per: "10cm" | "4in"; stitches: number };
   rowsDerived: boolean;
   warnings: string[];
 }
@@ -42,7 +45,7 @@ function positive(field: string, v: number | undefined, what: string): number | 
 
 export function resolveGauge(input: GaugeInput, prefix = "gauge"): ResolvedGauge {
   const f = (k: keyof GaugeInput) => `${prefix}.${k}`;
-  const forms: [string, number | undefined, number | undefined][] = [];
+  const forms: [string, number | undefined, number | undefined, ResolvedGauge["given"] | undefined][] = [];
   const s10 = positive(f("stitchesPer10cm"), input.stitchesPer10cm, "stitches counted over 10 cm of stockinette");
   const r10 = positive(f("rowsPer10cm"), input.rowsPer10cm, "rows counted over 10 cm of stockinette");
   const s4 = positive(f("stitchesPer4in"), input.stitchesPer4in, "stitches counted over 4 in of stockinette");
@@ -54,14 +57,20 @@ export function resolveGauge(input: GaugeInput, prefix = "gauge"): ResolvedGauge
   const overCm = positive(f("overCm"), input.overCm, "the swatch width the stitches were counted over");
   const overIn = positive(f("overIn"), input.overIn, "the swatch width the stitches were counted over");
 
-  if (s10 !== undefined || r10 !== undefined) forms.push(["per 10 cm", s10, r10]);
-  if (s4 !== undefined || r4 !== undefined) forms.push(["per 4 in", s4 && (s4 * 10) / (4 * CM_PER_IN), r4 && (r4 * 10) / (4 * CM_PER_IN)]);
-  if (s1 !== undefined || r1 !== undefined) forms.push(["per inch", s1 && (s1 * 10) / CM_PER_IN, r1 && (r1 * 10) / CM_PER_IN]);
+  if (s10 !== undefined || r10 !== undefined) forms.push(["per 10 cm", s10, r10, s10 === undefined ? undefined : { per: "10cm", stitches: s10 }]);
+  if (s4 !== undefined || r4 !== undefined) {
+    forms.push(["per 4 in", s4 && (s4 * 10) / (4 * CM_PER_IN), r4 && (r4 * 10) / (4 * CM_PER_IN), s4 === undefined ? undefined : { per: "4in", stitches: s4 }]);
+  }
+  if (s1 !== undefined || r1 !== undefined) {
+    forms.push(["per inch", s1 && (s1 * 10) / CM_PER_IN, r1 && (r1 * 10) / CM_PER_IN, s1 === undefined ? undefined : { per: "4in", stitches: s1 * 4 }]);
+  }
   if (sw !== undefined || rw !== undefined || overCm !== undefined || overIn !== undefined) {
     if (overCm !== undefined && overIn !== undefined) throw new SizingError(f("overCm"), "give overCm or overIn, not both");
     const over = overCm ?? (overIn !== undefined ? overIn * CM_PER_IN : undefined);
     if (over === undefined) throw new SizingError(f("overCm"), "a swatch count needs the width it was counted over (overCm or overIn)");
-    forms.push(["swatch", sw && (sw * 10) / over, rw && (rw * 10) / over]);
+    const given: ResolvedGauge["given"] | undefined =
+      sw === undefined ? undefined : overCm !== undefined ? { per: "10cm", stitches: (sw * 10) / overCm } : { per: "4in", stitches: (sw * 4) / (overIn as number) };
+    forms.push(["swatch", sw && (sw * 10) / over, rw && (rw * 10) / over, given]);
   }
   if (forms.length === 0) {
     throw new SizingError(prefix, "is missing: give stitchesPer10cm and rowsPer10cm (or per 4 in, per inch, or a swatch count)");
@@ -69,8 +78,8 @@ export function resolveGauge(input: GaugeInput, prefix = "gauge"): ResolvedGauge
   if (forms.length > 1) {
     throw new SizingError(prefix, `give the gauge one way only (got ${forms.map((x) => x[0]).join(" and ")})`);
   }
-  const [form, stitches, rowsGiven] = forms[0];
-  if (stitches === undefined) throw new SizingError(prefix, `has rows ${form} but no stitches ${form}`);
+  const [form, stitches, rowsGiven, given] = forms[0];
+  if (stitches === undefined || given === undefined) throw new SizingError(prefix, `has rows ${form} but no stitches ${form}`);
 
   const warnings: string[] = [];
   if (stitches < STITCH_LIMIT_PER_10CM.min || stitches > STITCH_LIMIT_PER_10CM.max) {
@@ -97,7 +106,7 @@ export function resolveGauge(input: GaugeInput, prefix = "gauge"): ResolvedGauge
       `${roundTo(rows, 0.1)} rows per 10 cm is outside any knitted fabric (${ROW_LIMIT_PER_10CM.min}–${ROW_LIMIT_PER_10CM.max} per 10 cm)`,
     );
   }
-  return { gauge: { stitchesPer10cm: stitches, rowsPer10cm: rows }, rowsDerived, warnings };
+  return { gauge: { stitchesPer10cm: stitches, rowsPer10cm: rows }, given, rowsDerived, warnings };
 }
 
 export function stitchesPerCm(g: Pick<Gauge, "stitchesPer10cm">): number {

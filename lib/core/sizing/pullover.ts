@@ -2,7 +2,7 @@
 // on one needle for a circular yoke with three decrease rounds, neckband. Colourwork either in the
 // yoke (a chart per yoke section) or in bands above the hem and the cuffs.
 import type { Gauge } from "../chart/model";
-import { getCastOn, getRows, nearestEven, nearestMultiple } from "./cast-on";
+import { ceilMultiple, getCastOn, getRows, nearestEven, nearestMultiple } from "./cast-on";
 import type { TemplateOutput } from "./mitten";
 import { IMPERIAL, METRIC, everyNth, ribFor, type UnitWriter } from "./recipe-text";
 import type { ChartArea, Piece } from "./sizing-result";
@@ -28,10 +28,13 @@ export const PULLOVER_PROPORTIONS = {
   bandPerChest: 0.09,
   /** plain rounds at the top of the sleeve after the last increase, per sleeve length */
   sleeveTopStraightPerSleeve: 0.07,
+  /** a cuff is about 1–2 in larger than the wrist (memory, common practice): the percentage cuff is
+   * held to the wrist plus this much */
+  cuffEaseCm: 3.8,
+  /** back-neck short rows raise the back about 1 in (memory, common practice) */
+  backNeckRaiseCm: 2.5,
   /** a ribbed neckband stretches by about a third (memory): the neck must reach head ÷ this */
   neckStretch: 4 / 3,
-  /** head assumed for the neck check when none is measured: a small child's (Typical Head Sizes table, toddler 18–20 in) */
-  assumedHeadCm: 48,
   source: "Zimmermann's percentage system (Knitting Without Tears, 1971; from memory) and (memory) common practice",
 } as const;
 
@@ -43,6 +46,14 @@ export interface PulloverSpec {
   wristCm?: number;
   /** the wearer's head, so the neck opening can pass over it */
   headCircumferenceCm?: number;
+  /** the head the neck is checked against when none is measured (see getAssumedHead) */
+  assumedHead: { cm: number; label: string };
+  /** a wrist for the size when none is measured (see getWristEstimateCm): caps the percentage cuff */
+  wristEstimateCm: number;
+  /** the most the yoke may rise for this chest (see getYokeDepthCapCm): caps the percentage depth */
+  yokeDepthCapCm: number;
+  /** raise the back neck with short rows worked across the back just below the neckband */
+  backNeckShortRows: boolean;
   yokeDepthCm?: number;
   hemLengthCm?: number;
   cuffLengthCm?: number;
@@ -52,6 +63,39 @@ export interface PulloverSpec {
   gauge: Gauge;
   repeat: number;
   style: "yoke" | "bands";
+}
+
+/** The percentage cuff (a fifth of the body, in sts), held to the wrist plus a cuff's ease. */
+export function getPercentCuffTarget(body: number, wristCm: number, stitchesPerCm: number): number {
+  const P = PULLOVER_PROPORTIONS;
+  return Math.min(P.wristPerBody * body, (wristCm + P.cuffEaseCm) * stitchesPerCm);
+}
+
+/** The percentage yoke depth (a share of the finished chest), held to the body's cap. */
+export function getPercentYokeDepthCm(finishedChestCm: number, capCm: number): number {
+  return Math.min(PULLOVER_PROPORTIONS.yokeDepthPerChest * finishedChestCm, capCm);
+}
+
+/**
+ * Back-neck short rows on the neck count, centred on the back, the rounds begun at the centre back
+ * (stitches slipped there, not knitted). Row by row, from the centre back: knit `half`, turn; purl
+ * `first` (= 2 × half, shoulder to shoulder: half the round rounded down to even), turn; then `pairs − 1`
+ * times: knit to `step` sts before the last turn, turn; purl to `step` sts before the last turn, turn;
+ * then knit back to the centre back. Pair i (1-based, after the first) knits first − (2i − 1) × step
+ * and purls first − 2i × step; the last row knits half − (pairs − 1) × step. As many pairs as half the
+ * rows that make the raise (at least 2); the last turn still about a third of the back from centre.
+ */
+export function planBackNeckShortRows(neck: number, raiseRows: number) {
+  const half = Math.max(1, Math.floor(neck / 4));
+  const first = 2 * half;
+  let pairs = Math.max(2, Math.round(raiseRows / 2));
+  const step = Math.max(1, Math.floor((first - Math.ceil(first / 3)) / (2 * (pairs - 1))));
+  pairs = Math.min(pairs, Math.floor((half - 1) / step) + 1); // every turn at least 1 st from the centre
+  const rowLengths = [half, first];
+  for (let i = 1; i < pairs; i++) rowLengths.push(first - (2 * i - 1) * step, first - 2 * i * step);
+  rowLengths.push(half - (pairs - 1) * step);
+  const stitches = rowLengths.reduce((a, b) => a + b, 0);
+  return { pairs, rows: 2 * pairs, half, first, step, rowLengths, stitches };
 }
 
 export function sizePullover(spec: PulloverSpec): TemplateOutput {
@@ -71,7 +115,10 @@ export function sizePullover(spec: PulloverSpec): TemplateOutput {
   const chestFinishedCm = body / spc;
   const fit = chestFinishedCm / spec.chestCm; // the body's ease, carried to measured arms
   const upperTarget = spec.upperArmCm !== undefined ? spec.upperArmCm * fit * spc : P.upperArmPerBody * body;
-  const wristTarget = spec.wristCm !== undefined ? spec.wristCm * fit * spc : P.wristPerBody * body;
+  // The percentage cuff (a fifth of the body) grows with the chest; a wrist does not: hold it to the
+  // wrist plus a cuff's ease at large sizes.
+  const wristTarget = spec.wristCm !== undefined ? spec.wristCm * fit * spc : getPercentCuffTarget(body, spec.wristEstimateCm, spc);
+  if (spec.wristCm === undefined && wristTarget < P.wristPerBody * body) derived.wristCm = roundTo(spec.wristEstimateCm, 0.1);
 
   const cuff =
     spec.style === "bands" ? getCastOn(wristTarget / spc, spc, spec.repeat, "repeat", "sleeve cuff") : nearestEven(wristTarget, 4);
@@ -82,11 +129,15 @@ export function sizePullover(spec: PulloverSpec): TemplateOutput {
   const yokeStart = nearestMultiple(join, unit);
   // The neck follows the percentage system unless the wearer's head would not pass through it.
   const neckMinSts = spec.headCircumferenceCm !== undefined ? (spec.headCircumferenceCm / P.neckStretch) * spc : 0;
-  const neckTarget = Math.max(P.neckPerBody * body, neckMinSts);
+  // At large sizes 40 % of the body is wider than the head itself and only gapes: hold it to the head.
+  const neckPercent = Math.min(P.neckPerBody * body, (spec.headCircumferenceCm ?? spec.assumedHead.cm) * spc);
+  const neckTarget = Math.max(neckPercent, neckMinSts);
   const q = Math.cbrt(neckTarget / yokeStart);
   const y1 = nearestMultiple(yokeStart * q, unit);
   const y2 = nearestMultiple(yokeStart * q * q, unit);
-  const neck = nearestMultiple(neckTarget, unit);
+  // A measured head sets a minimum: round up to the repeat, never below it.
+  const neck =
+    neckMinSts > 0 ? Math.max(nearestMultiple(neckPercent, unit), ceilMultiple(neckMinSts, unit)) : nearestMultiple(neckTarget, unit);
   const yokeCounts = [yokeStart, Math.min(y1, yokeStart), Math.min(y2, y1, yokeStart), Math.min(neck, y2, y1, yokeStart)];
   if (yokeCounts[1] === yokeCounts[0] || yokeCounts[2] === yokeCounts[1] || yokeCounts[3] === yokeCounts[2]) {
     warnings.push(`a repeat of ${spec.repeat} sts is too wide for three yoke decreases: some yoke sections keep the same count`);
@@ -95,7 +146,7 @@ export function sizePullover(spec: PulloverSpec): TemplateOutput {
   const hemCm = pick("hemLengthCm", spec.hemLengthCm, clamp(P.hemPerChest * spec.chestCm, 2, 7));
   const cuffCm = pick("cuffLengthCm", spec.cuffLengthCm, clamp(P.hemPerChest * spec.chestCm, 2, 7));
   const neckbandCm = pick("neckbandLengthCm", spec.neckbandLengthCm, clamp(P.neckbandPerChest * spec.chestCm, 1.5, 4));
-  const yokeCm = pick("yokeDepthCm", spec.yokeDepthCm, P.yokeDepthPerChest * chestFinishedCm);
+  const yokeCm = pick("yokeDepthCm", spec.yokeDepthCm, getPercentYokeDepthCm(chestFinishedCm, spec.yokeDepthCapCm));
   const bandCm = spec.style === "bands" ? pick("bandHeightCm", spec.bandHeightCm, clamp(P.bandPerChest * spec.chestCm, 3, 12)) : 0;
 
   const hemRows = getRows(hemCm, rpc);
@@ -155,12 +206,14 @@ export function sizePullover(spec: PulloverSpec): TemplateOutput {
     yokeT.shape(count);
     yokeT.plain(sectionRows[i] - 1);
   });
-  yokeT.plain(neckRows);
   const neckSts = yokeCounts[3];
-  const headCheckCm = spec.headCircumferenceCm ?? P.assumedHeadCm;
-  if ((neckSts / spc) * P.neckStretch < headCheckCm) {
+  const shortRows = spec.backNeckShortRows ? planBackNeckShortRows(neckSts, getRows(P.backNeckRaiseCm, rpc)) : null;
+  if (shortRows) yokeT.partial(shortRows.stitches);
+  yokeT.plain(neckRows);
+  const headCheckCm = spec.headCircumferenceCm ?? spec.assumedHead.cm;
+  if ((neckSts / spc) * P.neckStretch < headCheckCm - 1e-9) {
     warnings.push(
-      `the neck opening is ${roundTo(neckSts / spc, 0.1)} cm around; a rib stretches about a third, which may not pass over a ${roundTo(headCheckCm, 0.1)} cm head${spec.headCircumferenceCm === undefined ? " (give headCircumferenceCm to size the neck for the wearer)" : ""}`,
+      `the neck opening is ${roundTo(neckSts / spc, 0.1)} cm around; a rib stretches about a third, which may not pass over a ${roundTo(headCheckCm, 0.1)} cm head${spec.headCircumferenceCm === undefined ? ` (a typical ${spec.assumedHead.label} head, Typical Head Sizes table; give headCircumferenceCm to size the neck for the wearer)` : ""}`,
     );
   }
 
@@ -244,6 +297,13 @@ export function sizePullover(spec: PulloverSpec): TemplateOutput {
     });
     lines.push(
       `Yoke${spec.style === "yoke" ? ", following the yoke charts" : ""}: ${parts.join("; ")}. Work to ${u.len((yokeRows - neckRows) / rpc)} above the join (${yokeRows - neckRows} rnds).`,
+    );
+    if (shortRows) {
+      lines.push(
+        `Back-neck short rows (raise the back neck about ${u.len(P.backNeckRaiseCm)}): slip sts without knitting them to the centre back and begin the rnds there. Knit ${shortRows.half}, turn; purl ${shortRows.first}, turn.${shortRows.pairs > 1 ? ` Then ${shortRows.pairs - 1} times: knit to ${shortRows.step} sts before the last turn, turn; purl to ${shortRows.step} sts before the last turn, turn.` : ""} Knit to the centre back (${shortRows.half - (shortRows.pairs - 1) * shortRows.step} sts): ${shortRows.rows} short rows and ${shortRows.stitches} sts in all. Close the gap at each turn on the first neckband rnd.`,
+      );
+    }
+    lines.push(
       `Neckband: work ${neckRows} rnds (${u.len(neckRows / rpc)}) of ${ribFor(neckSts)} on ${neckSts} sts and bind off loosely. Graft the underarm stitches, weave in the ends and block.`,
     );
     return lines;
@@ -260,6 +320,13 @@ export function sizePullover(spec: PulloverSpec): TemplateOutput {
     yokeDecrease2: yokeCounts[2],
     neck: neckSts,
   };
+  if (shortRows) {
+    counts.backNeckShortRowPairs = shortRows.pairs;
+    counts.backNeckShortRowFirst = shortRows.first;
+    counts.backNeckShortRowHalf = shortRows.half;
+    counts.backNeckShortRowStep = shortRows.step;
+    counts.backNeckShortRowStitches = shortRows.stitches;
+  }
   const rows: Record<string, number> = {
     hem: hemRows,
     body: bodyRows,
@@ -274,6 +341,7 @@ export function sizePullover(spec: PulloverSpec): TemplateOutput {
     neckband: neckRows,
   };
   if (spec.style === "bands") rows.band = bandRows;
+  if (shortRows) rows.backNeckShortRows = shortRows.rows;
 
   return {
     castOn: body,

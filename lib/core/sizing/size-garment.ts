@@ -4,13 +4,13 @@ import { z } from "zod";
 import { parseWithMessages } from "../chart/zod-messages";
 import { EASE_CATEGORY_KEYS, resolveEase, type EaseCategoryKey } from "./ease";
 import { resolveGauge } from "./gauge";
-import { sizeHat, HAT_PROPORTIONS } from "./hat";
+import { sizeHat, HAT_PROPORTIONS, type HatStyle } from "./hat";
 import { MEASUREMENT_SPECS, measurementFields, readMeasurement, type MeasurementName } from "./measurements";
 import { MITTEN_PROPORTIONS, sizeMitten, type TemplateOutput } from "./mitten";
 import { PULLOVER_PROPORTIONS, sizePullover } from "./pullover";
 import type { GarmentKind, SizingResult } from "./sizing-result";
 import { SizingError } from "./sizing-error";
-import { STANDARD_SIZES, getSizeKeys, getStandardMeasurements } from "./standard-sizes";
+import { HAT_HEIGHTS, STANDARD_SIZES, getAssumedHead, getHatHeightCm, getSizeKeys, getStandardMeasurements, getWristEstimateCm, getYokeDepthCapCm } from "./standard-sizes";
 import { CM_PER_IN, roundTo, toLength } from "./units";
 import { checkGauge, YARN_WEIGHTS } from "../yarn/yarn-weights";
 
@@ -48,7 +48,10 @@ export const sizeGarmentInputSchema = z.strictObject({
   options: z
     .object({
       thumb: z.enum(["gusset", "afterthought"]).optional(),
-      style: z.enum(["yoke", "bands"]).optional(),
+      /** pullovers: yoke | bands; hats: beanie | folded-brim | tall (fitted, folded and slouch are read as those) */
+      style: z.enum(["yoke", "bands", "beanie", "folded-brim", "tall", "fitted", "folded", "slouch"]).optional(),
+      /** pullovers: raise the back neck with short rows */
+      backNeckShortRows: z.boolean().optional(),
     })
     .catchall(num)
     .optional(),
@@ -116,9 +119,16 @@ export function sizeGarment(rawInput: unknown): SizingResult {
     used[`${name}Cm`] = { ...toLength(value), from: given !== undefined ? "given" : "standard size" };
   }
 
-  const { thumb, style, ...lengths } = input.options ?? {};
+  const { thumb, style, backNeckShortRows, ...lengths } = input.options ?? {};
   if (thumb !== undefined && garment !== "mitten") throw new SizingError("options.thumb", "applies to mittens only");
-  if (style !== undefined && garment !== "pullover") throw new SizingError("options.style", "applies to pullovers only");
+  const styleOf = { yoke: "yoke", bands: "bands", beanie: "beanie", fitted: "beanie", "folded-brim": "folded-brim", folded: "folded-brim", tall: "tall", slouch: "tall" } as const;
+  const styleName = style === undefined ? undefined : styleOf[style];
+  if (styleName !== undefined) {
+    if (garment === "mitten") throw new SizingError("options.style", "applies to hats (beanie, folded-brim, tall) and pullovers (yoke, bands) only");
+    const allowed: readonly string[] = garment === "hat" ? ["beanie", "folded-brim", "tall"] : ["yoke", "bands"];
+    if (!allowed.includes(styleName)) throw new SizingError("options.style", `a ${garment}'s style is ${allowed.join(" or ")} (got ${style})`);
+  }
+  if (backNeckShortRows !== undefined && garment !== "pullover") throw new SizingError("options.backNeckShortRows", "applies to pullovers only");
   checkFields(lengths, measurementFields(spec.options), "options");
   const opt: Partial<Record<MeasurementName, number>> = {};
   for (const name of spec.options) {
@@ -126,12 +136,13 @@ export function sizeGarment(rawInput: unknown): SizingResult {
     if (v !== undefined) opt[name] = v;
   }
 
-  const { gauge, rowsDerived, warnings: gaugeWarnings } = resolveGauge(input.gauge);
+  const { gauge, given: givenGauge, rowsDerived, warnings: gaugeWarnings } = resolveGauge(input.gauge);
   warnings.push(...gaugeWarnings);
   if (rowsDerived) sources.push("Munden, J. Textile Institute 1959: relaxed plain-knit proportions (row gauge assumed)");
 
   if (input.yarnCategory !== undefined) {
-    const check = checkGauge(input.yarnCategory, roundTo(gauge.stitchesPer10cm, 0.1), garment);
+    // In the unit the gauge was given: the standard publishes its ranges per 4 in and per 10 cm alike.
+    const check = checkGauge(input.yarnCategory, givenGauge.stitches, garment, givenGauge.per);
     if (check.message) warnings.push(check.message);
     sources.push(YARN_WEIGHTS.source);
   }
@@ -160,6 +171,8 @@ export function sizeGarment(rawInput: unknown): SizingResult {
     sources.push(MITTEN_PROPORTIONS.source);
   } else if (garment === "hat") {
     out = sizeHat({
+      style: (styleName as HatStyle | undefined) ?? "beanie",
+      standardHeightCm: getHatHeightCm(used.headCircumferenceCm?.from === "standard size" ? input.size : undefined, main),
       headCircumferenceCm: main,
       hatHeightCm: opt.hatHeight,
       brimLengthCm: opt.brimLength,
@@ -168,6 +181,7 @@ export function sizeGarment(rawInput: unknown): SizingResult {
       repeat,
     });
     sources.push(HAT_PROPORTIONS.source);
+    if (styleName === "tall" || styleName === "folded-brim") sources.push(HAT_HEIGHTS.source);
   } else {
     out = sizePullover({
       chestCm: main,
@@ -176,6 +190,10 @@ export function sizeGarment(rawInput: unknown): SizingResult {
       upperArmCm: cm.upperArm,
       wristCm: cm.wrist,
       headCircumferenceCm: cm.headCircumference,
+      assumedHead: getAssumedHead(input.size, main),
+      wristEstimateCm: getWristEstimateCm(input.size, main),
+      yokeDepthCapCm: getYokeDepthCapCm(main),
+      backNeckShortRows: backNeckShortRows ?? false,
       yokeDepthCm: opt.yokeDepth,
       hemLengthCm: opt.hemLength,
       cuffLengthCm: opt.cuffLength,
@@ -184,7 +202,7 @@ export function sizeGarment(rawInput: unknown): SizingResult {
       easeCm: ease.cm,
       gauge,
       repeat,
-      style: style ?? "yoke",
+      style: (styleName as "yoke" | "bands" | undefined) ?? "yoke",
     });
     sources.push(PULLOVER_PROPORTIONS.source);
   }
@@ -205,6 +223,7 @@ export function sizeGarment(rawInput: unknown): SizingResult {
   return {
     garment,
     size: input.size ?? null,
+    ...(garment === "mitten" ? {} : { style: styleName ?? (garment === "hat" ? "beanie" : "yoke") }),
     castOn: out.castOn,
     counts: out.counts,
     rows: out.rows,

@@ -48,6 +48,8 @@ export interface SizingResult {
   garment: GarmentKind;
   /** the standard size used, when one was picked */
   size: string | null;
+  /** hats: beanie | folded-brim | tall; pullovers: yoke | bands (absent for mittens) */
+  style?: string;
   /** main circumference count: hand, head or chest */
   castOn: number;
   counts: Record<string, number>;

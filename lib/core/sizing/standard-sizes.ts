@@ -1,7 +1,7 @@
 // Standard sizes a studio can pick instead of measuring. Every table carries its source so the
 // interface can cite it beside the numbers. Ranges are body measurements in inches, as published;
 // sizing uses the middle of a range, converted exactly (1 in = 2.54 cm).
-import { inToCm } from "./units";
+import { CM_PER_IN, inToCm } from "./units";
 
 export interface SizeRange {
   min: number;
@@ -123,4 +123,74 @@ export function getStandardMeasurements(garment: GarmentKind, key: string): Reco
   };
   if (s.upperArmIn !== null) out.upperArmCm = inToCm(s.upperArmIn);
   return out;
+}
+
+/**
+ * The head a pullover's neck must pass over when none is measured: the middle of the Typical Head
+ * Sizes row for the wearer (HEAD_SIZES' source): a men's size → man (22–24.5 in), a women's size or a
+ * measured adult chest → woman (21–23.5 in). For a measured chest under 71 cm (28 in, the smallest
+ * adult chest in BODY_SIZES) a child's (19–20.5 in), under 56 cm (22 in) a toddler's (18–20 in):
+ * those two chest bounds are ours (memory), not read from a source.
+ */
+export function getAssumedHead(sizeKey: string | undefined, chestCm: number): { cm: number; label: string } {
+  const row = (key: string) => HEAD_SIZES.sizes.find((h) => h.key === key) as HeadSize;
+  let key: string;
+  if (sizeKey?.startsWith("men-")) key = "man";
+  else if (sizeKey?.startsWith("women-")) key = "woman";
+  else if (chestCm >= inToCm(28)) key = "woman";
+  else if (chestCm >= inToCm(22)) key = "child";
+  else key = "toddler";
+  const h = row(key);
+  return { cm: middleCm(h.headIn), label: `${h.label.toLowerCase()}'s` };
+}
+
+/**
+ * A wrist for a size when none is measured, to hold the percentage method's cuff to the body at large
+ * sizes: (memory) typical adult wrists, not read from a source: women's 5¾ in at a 29 in bust, men's
+ * 6½ in at a 35 in chest, each ¼ in more for every 4 in of chest (a child's in proportion below the
+ * smallest size). Men's sizes use the men's line; women's sizes and measured chests the women's.
+ */
+export function getWristEstimateCm(sizeKey: string | undefined, chestCm: number): number {
+  const chestIn = chestCm / CM_PER_IN;
+  const [base, at] = sizeKey?.startsWith("men-") ? [6.5, 35] : [5.75, 29];
+  const wristIn = chestIn >= at ? base + (chestIn - at) / 16 : (base * chestIn) / at;
+  return inToCm(wristIn);
+}
+
+/**
+ * The most a yoke should rise from the underarm to the neck for a chest, to hold the percentage
+ * method's depth (a share of the finished chest) to the body at large sizes: the armhole depth of the
+ * Craft Yarn Council women's size chart (memory: 7–7.5 in at a 36–38 in bust, ½ in more a size, i.e.
+ * 2⅝ in + bust ÷ 8) plus 1¾ in for the front neck to drop below the back (ours).
+ */
+export function getYokeDepthCapCm(chestCm: number): number {
+  return inToCm(2.625 + chestCm / CM_PER_IN / 8 + 1.75);
+}
+
+export const HAT_HEIGHTS = {
+  // Source: Craft Yarn Council head and hat-height chart, as reproduced on public pattern pages:
+  // brim to crown for a hat with some slouch or a folded brim (TRADE-REFERENCES.md).
+  source: "Craft Yarn Council hat heights (brim to crown, a hat with some slouch or a folded brim): child 8.5 in, teen 10, woman 11, man 11.5",
+  heightsIn: { child: 8.5, teen: 10, woman: 11, man: 11.5 } as Record<string, number>,
+} as const;
+
+/**
+ * The standard's hat height for a size; for a head measured (or a size the chart has no row for), read
+ * between the rows at the middles of their head ranges (child 19.75 in → 8.5 in … man 23.25 in → 11.5),
+ * in proportion below the child's and no taller than the man's (ours: the chart gives rows, not a curve).
+ */
+export function getHatHeightCm(sizeKey: string | undefined, headCm: number): number {
+  const table = HAT_HEIGHTS.heightsIn;
+  if (sizeKey !== undefined && table[sizeKey] !== undefined) return inToCm(table[sizeKey]);
+  const points = HEAD_SIZES.sizes
+    .filter((h) => table[h.key] !== undefined)
+    .map((h) => ({ head: (h.headIn.min + h.headIn.max) / 2, height: table[h.key] }));
+  const headIn = headCm / CM_PER_IN;
+  const [lo, hi] = [points[0], points[points.length - 1]];
+  if (headIn <= lo.head) return inToCm((lo.height * headIn) / lo.head);
+  if (headIn >= hi.head) return inToCm(hi.height);
+  const j = points.findIndex((p) => p.head >= headIn);
+  const a = points[j - 1];
+  const b = points[j];
+  return inToCm(a.height + ((b.height - a.height) * (headIn - a.head)) / (b.head - a.head));
 }

@@ -23,6 +23,10 @@ export class Tally {
     this.rows += 1;
     this.counts.push(after);
   }
+  /** stitches worked in partial rows (short rows) that are not whole rounds */
+  partial(stitches: number): void {
+    this.total += stitches;
+  }
   /** stitches put on hold or cast on between rounds (no yarn knitted) */
   set(count: number): void {
     this.current = count;

@@ -4,7 +4,8 @@ export interface YarnWeight {
   category: number;
   name: string;
   typicalYarns: string[];
-  /** stitches per 10 cm (the council gives the same numbers per 4 in); null = open end */
+  /** stitches per 10 cm; the council publishes the same numbers per 4 in ("4 in / 10 cm"), so a gauge
+   * counted per 4 in is compared with them as they stand, not converted; null = open end */
   stitchesPer10cm: { min: number | null; max: number | null };
   needleMm: { min: number | null; max: number | null };
   needleUs: { min: string | null; max: string | null };
@@ -60,25 +61,36 @@ export interface GaugeCheck {
 /**
  * Compares a gauge with its yarn category's range. Outside the range is a note, not an error:
  * a firm gauge for mittens is normal (common practice: knitted firmly for warmth and wear).
+ * The council publishes each range "per 4 in / 10 cm" with one set of numbers, so a gauge counted
+ * per 4 in is compared with the range in its own unit (`per` "4in"): converting it first (16 per 4 in
+ * = 15.75 per 10 cm) would put a gauge at the published bound outside it. Bounds are inclusive.
  */
-export function checkGauge(category: number, stitchesPer10cm: number, garment?: "mitten" | "hat" | "pullover"): GaugeCheck {
+export function checkGauge(
+  category: number,
+  stitches: number,
+  garment?: "mitten" | "hat" | "pullover",
+  per: "10cm" | "4in" = "10cm",
+): GaugeCheck {
   const w = getYarnWeight(category);
-  if (!Number.isFinite(stitchesPer10cm) || stitchesPer10cm <= 0) {
-    throw new Error(`stitchesPer10cm must be more than 0 (got ${String(stitchesPer10cm)})`);
+  if (!Number.isFinite(stitches) || stitches <= 0) {
+    throw new Error(`stitches per ${per === "4in" ? "4 in" : "10 cm"} must be more than 0 (got ${String(stitches)})`);
   }
+  const unit = per === "4in" ? "4 in" : "10 cm";
   const range = rangeText(w.stitchesPer10cm);
   const { min, max } = w.stitchesPer10cm;
   const base = { category, name: w.name, rangeText: range };
-  const label = `${stitchesPer10cm} sts per 10 cm`;
-  const usual = `the usual range for category ${category} ${w.name} (${range} sts per 10 cm; ${YARN_WEIGHTS.source})`;
-  if (max !== null && stitchesPer10cm > max) {
+  const label = `${Math.round(stitches * 100) / 100} sts per ${unit}`;
+  const usual = `the usual range for category ${category} ${w.name} (${range} sts per ${unit}; ${YARN_WEIGHTS.source})`;
+  // A hair of tolerance so a count given as a fraction (a swatch, per inch × 4) is not tripped by binary arithmetic.
+  const EPS = 1e-9;
+  if (max !== null && stitches > max + EPS) {
     const message =
       garment === "mitten"
         ? `${label} is firmer than ${usual}. That is normal for mittens, which are knitted firmly for warmth and wear; check the fabric still bends easily.`
         : `${label} is firmer than ${usual}: the fabric will be dense and stiff and take more yarn; a thinner yarn or larger needles would be usual.`;
     return { ...base, within: false, direction: "firmer", message };
   }
-  if (min !== null && stitchesPer10cm < min) {
+  if (min !== null && stitches < min - EPS) {
     return {
       ...base,
       within: false,

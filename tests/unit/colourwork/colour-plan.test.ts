@@ -103,6 +103,15 @@ describe("planColours: floats and catches per row", () => {
     expect(plan.rows[0].catches).toBe(2);
     expect(planColours(coarse, { floatLimitCm: 5 }).rows[0].catches).toBe(1); // now 5 stitches
   });
+
+  test("catches are staggered: the same float in three rows is caught at stitch 6, 5, 6, never twice running", () => {
+    // In knitting order each row is B then seven A: a float of 7 (limit 5) needs one catch. The
+    // even place is 4 stitches in (stitch 6); the row above keeps off it and takes the next most
+    // even place, 3 in (stitch 5: pieces 3 + 4); the third row is free to use stitch 6 again.
+    const plan = planColours(chartFromRows(["AAAAAAAB", "AAAAAAAB", "AAAAAAAB"], ["A", "B"]));
+    expect(plan.rows.map((r) => r.floats.map((f) => f.catchStitches))).toEqual([[[6]], [[5]], [[6]]]);
+    expect(plan.totals.catches).toBe(3);
+  });
 });
 
 describe("planColours: options are checked with messages that name the field", () => {

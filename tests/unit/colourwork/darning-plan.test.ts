@@ -20,7 +20,7 @@ describe("planDarning", () => {
     expect(c.yarnCm).toBe(36);
     // 2 × 30 s + 2 ends × 3 min + 1.5 cm × 5 s = 7.125 min
     expect(c.minutes).toBe(7.1);
-    expect(plan.settings).toEqual({ carryLimitCm: 2.5, tailCm: 15, loopCm: 2.1, rates: defaultDarningRates });
+    expect(plan.settings).toEqual({ carryLimitCm: 2.5, tailCm: 15, loopCm: 2.1, rates: defaultDarningRates, routeInTheRound: false });
   });
 
   test("the carry limit is a setting: at 1 cm the same two stitches need two strands", () => {

@@ -11,6 +11,9 @@ import {
   type RoundPairsOptions,
   type RoundPairsPlan,
 } from "@/lib/core/colourwork/round-pairs";
+import { readFileSync } from "node:fs";
+import { parseChart } from "@/lib/core/chart/format";
+import { planColours } from "@/lib/core/colourwork/colour-plan";
 import { HALF_CM_GAUGE, HEX } from "./chart-from-rows";
 
 const KEYS = ["A", "B", "C", "D"];
@@ -53,6 +56,7 @@ describe("planRoundPairs: worked by hand", () => {
       minutes: 25.3,
     });
     expect(plan.plannedMinutes).toBe(25.3);
+    expect(plan.darning).toEqual([{ key: "B", stitches: 2, strands: 1, ends: 2, carryCm: 2 }]);
     // The old model holds A and B throughout: 12 min of ends, four C darned in round 3 (one strand:
     // 2 min + 6 min + 1.5 cm) and two in round 4 continuing it (1 min + 2 cm), idle B 2 × 0.5 cm:
     // 12 + 8.125 + 1.1667 + 0.0833 = 21.375 min — cheaper, but it darns in a two-colour round.
@@ -90,9 +94,47 @@ describe("planRoundPairs: worked by hand", () => {
     expect(none.totals.minutes).toBe(0);
   });
 
+  test("reasons name colours by their palette names when given", () => {
+    const named = piece(rounds, ["A", "B", "C"]);
+    named.palette = named.palette.map((p, i) => ({ ...p, name: ["cream", "navy", "blue"][i] }));
+    expect(planRoundPairs(named).rounds[2].reason).toBe("pair changes here: blue appears; only two colours: knitted, nothing darned");
+  });
+
+  test("one colour left to knit: it is held alone and everything else is darned over it", () => {
+    const plan = planRoundPairs(piece(["AAAA", "ABBA", "", "BBBB"], ["A", "B"]), { darn: ["B"] });
+    expect(plan.rounds.map((r) => r.pair.join(""))).toEqual(["A", "A", "A", "A"]);
+    expect(plan.rounds.map((r) => r.darned.length)).toEqual([0, 2, 0, 4]);
+    expect(plan.rounds[3].darned.every((d) => d.onto === "A")).toBe(true);
+    expect(plan.totals).toMatchObject({ joins: 1, cuts: 1, darnedStitches: 6 });
+  });
+
+  test("route: false skips the whole-piece route; the totals keep the estimate", () => {
+    const plan = planRoundPairs(piece(rounds, ["A", "B", "C"]), { route: false });
+    expect(plan.darning).toEqual([]);
+    expect(plan.totals.darningEnds).toBe(plan.planned.darningEnds);
+    expect(plan.totals.minutes).toBe(plan.plannedMinutes);
+  });
+
   test("palette indices work as colour names", () => {
     const plan = planRoundPairs({ rounds: [[0, 1, 0, 1]], palette: palette(["A", "B"]), gauge: HALF_CM_GAUGE }, { pins: [{ fromRound: 1, toRound: 1, pair: [1, 0] }] });
     expect(plan.rounds[0].pair).toEqual(["A", "B"]);
+  });
+});
+
+describe("planRoundPairs on the fixture mitten, read as whole rounds", () => {
+  test("one pair for the chart darns 53 stitches, 22 of them in rounds of two colours; round by round none there, and fewer in all", () => {
+    const chart = parseChart(JSON.parse(readFileSync("tests/fixtures/charts/mitten-left.json", "utf8")));
+    const rounds = Array.from({ length: chart.height }, (_, y) => Array.from({ length: chart.width }, (_, k) => chart.cells[y * chart.width + (chart.width - 1 - k)]));
+    const old = planColours(chart);
+    const inTwoColourRounds = rounds.reduce((sum, round) => (new Set(round).size > 2 ? sum : sum + round.filter((c) => !old.knit.includes(chart.palette[c].key)).length), 0);
+    expect(old.darnedStitches).toBe(53);
+    expect(inTwoColourRounds).toBe(22);
+    const plan = planRoundPairs({ rounds, palette: chart.palette, gauge: chart.gauge });
+    plan.rounds.forEach((r, i) => {
+      if (new Set(rounds[i]).size <= 2) expect(r.darned).toEqual([]);
+    });
+    expect(plan.totals.darnedStitches).toBeLessThanOrEqual(53 - 22);
+    expect(plan.plannedMinutes).toBeLessThan(plan.singlePair!.minutes);
   });
 });
 
@@ -106,6 +148,7 @@ describe("planRoundPairs: bad input names the place", () => {
     [piece(["AB"], ["A", "B"]), { darn: ["B"], pins: [{ fromRound: 1, toRound: 1, pair: ["A", "B"] }] }, /'B' is also to be darned/],
     [{ rounds: "x" }, {}, /piece\.rounds/],
     [piece(["AB"], ["A", "B"]), { floatLimitStitches: 0 }, /options\.floatLimitStitches/],
+    [piece(Array.from({ length: 251 }, () => "A".repeat(1000)), ["A", "B"]), {}, /251000 stitches; at most 250000/],
   ])("%#", (input, options, message) => {
     expect(() => planRoundPairs(input, options)).toThrow(ColourworkError);
     expect(() => planRoundPairs(input, options)).toThrow(message);
@@ -212,6 +255,24 @@ function checkPlan(plan: RoundPairsPlan, input: { rounds: string[][] }, options:
 }
 
 describe("planRoundPairs: optimal and within the rules", () => {
+  test("pairs sharing a round's pattern of knitted stitches are priced as if each were worked out alone", () => {
+    fc.assert(
+      fc.property(withExtras, ({ input, options }) => {
+        const costs = new RoundPairCosts(resolveRoundPiece(input, options));
+        const rates = costs.piece.rates;
+        const h = 10 / HALF_CM_GAUGE.rowsPer10cm;
+        for (let r = 0; r < input.rounds.length; r++) {
+          for (const p of costs.pairs) {
+            const w = costs.roundWork(r, p);
+            const alone = (w.darned * rates.secondsPerDuplicateStitch + w.catches * rates.secondsPerFloatCatch + w.idle * h * rates.secondsPerCarryCm) / 60;
+            expect(costs.roundMinutes(r, p)).toBeCloseTo(alone, 9);
+          }
+        }
+      }),
+      { numRuns: 100 },
+    );
+  });
+
   test("the dynamic programme finds the same least minutes as trying every sequence of pairs", () => {
     fc.assert(
       fc.property(withExtras, ({ input, options }) => {
@@ -247,13 +308,27 @@ describe("planRoundPairs: optimal and within the rules", () => {
     );
   });
 
-  test("the totals add up to the minutes the planner minimised", () => {
+  test("the totals add up, and agree with the minutes planned but for the route and the staggering", () => {
     fc.assert(
       fc.property(withExtras, ({ input, options }) => {
         const plan = planRoundPairs(input, options);
-        expect(Math.abs(plan.totals.minutes - plan.plannedMinutes)).toBeLessThanOrEqual(0.1 + 1e-9);
-        expect(plan.totals.joins).toBe(plan.totals.cuts);
-        expect(plan.totals.darnedStitches).toBe(plan.rounds.reduce((s, r) => s + r.darned.length, 0));
+        const costs = new RoundPairCosts(resolveRoundPiece(input, options));
+        const rates = costs.piece.rates;
+        const t = plan.totals;
+        expect(t.joins).toBe(t.cuts);
+        expect(t.knitEnds).toBe(t.joins + t.cuts);
+        expect(t.ends).toBe(t.knitEnds + t.darningEnds);
+        expect(t.darnedStitches).toBe(plan.rounds.reduce((s, r) => s + r.darned.length, 0));
+        expect(t.catches).toBe(plan.rounds.reduce((s, r) => s + r.catches, 0));
+        expect(t.darningEnds).toBe(plan.darning.reduce((s, d) => s + d.ends, 0));
+        const minutes = (ends: number, carry: number, catches: number) =>
+          (t.darnedStitches * rates.secondsPerDuplicateStitch + carry * rates.secondsPerCarryCm + catches * rates.secondsPerFloatCatch) / 60 +
+          ends * rates.minutesPerEnd;
+        expect(Math.abs(minutes(t.ends, t.carryCm, t.catches) - t.minutes)).toBeLessThanOrEqual(0.1);
+        const p = plan.planned;
+        expect(Math.abs(minutes(t.knitEnds + p.darningEnds, p.carryCm, p.catches) - plan.plannedMinutes)).toBeLessThanOrEqual(0.1);
+        // staggering only ever adds catches
+        expect(t.catches).toBeGreaterThanOrEqual(p.catches);
       }),
       { numRuns: 100 },
     );

@@ -13,11 +13,20 @@ export interface Geometry {
   h: number;
   /** longest single stretch, cm */
   limitCm: number;
+  /** in the round: stitches per row, the first and last of a row being neighbours */
+  wrapWidth?: number;
 }
 
-const touching = (a: Spot, b: Spot) => Math.abs(a.x - b.x) <= 1 && Math.abs(a.y - b.y) <= 1 && (a.x !== b.x || a.y !== b.y);
-const length = (g: Geometry, a: Spot, b: Spot) => Math.hypot((a.x - b.x) * g.w, (a.y - b.y) * g.h);
-const stretchOk = (g: Geometry, a: Spot, b: Spot) => touching(a, b) || length(g, a, b) <= g.limitCm + 1e-9;
+/** Column difference, the shorter way round when in the round. */
+const gapX = (g: Geometry | undefined, dx: number) => {
+  const w = g?.wrapWidth;
+  if (!w) return dx;
+  const d = ((dx % w) + w) % w;
+  return Math.min(d, w - d);
+};
+const touching = (a: Spot, b: Spot, g?: Geometry) => Math.abs(gapX(g, a.x - b.x)) <= 1 && Math.abs(a.y - b.y) <= 1 && (a.x !== b.x || a.y !== b.y);
+const length = (g: Geometry, a: Spot, b: Spot) => Math.hypot(gapX(g, a.x - b.x) * g.w, (a.y - b.y) * g.h);
+const stretchOk = (g: Geometry, a: Spot, b: Spot) => touching(a, b, g) || length(g, a, b) <= g.limitCm + 1e-9;
 
 export interface CheckedStep extends Spot {
   carryCm: number;
@@ -44,7 +53,7 @@ export function checkRoute(g: Geometry, stitches: Spot[], strands: CheckedStep[]
         expect(step.carryCm).toBe(0);
       } else {
         const prev = strand[k - 1];
-        if (touching(prev, step)) {
+        if (touching(prev, step, g)) {
           expect(step.carryCm).toBe(0);
           expect(step.via).toHaveLength(0);
         } else {
@@ -75,7 +84,7 @@ export function bestOverAllOrders(g: Geometry, pts: Spot[]): { ends: number; car
   if (n === 0) return { ends: 0, carryCm: 0 };
   const len = pts.map((a) => pts.map((b) => length(g, a, b)));
   const ok = pts.map((a) => pts.map((b) => stretchOk(g, a, b)));
-  const touch = pts.map((a) => pts.map((b) => touching(a, b)));
+  const touch = pts.map((a) => pts.map((b) => touching(a, b, g)));
   let best = { ends: Infinity, carryCm: Infinity };
   const full = (1 << n) - 1;
   const visit = (mask: number, p: number, ends: number, carry: number) => {

@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, test } from "vitest";
-import { getCatchCount, getCatchOffsets, getFloatLimitStitches, getRowFloats } from "@/lib/core/colourwork/row-floats";
+import { getCatchCount, getCatchOffsets, getCatchStitches, getFloatLimitStitches, getRowFloats, getStaggeredOffsets } from "@/lib/core/colourwork/row-floats";
 
 /** A knitted row in knitting order from a drawing of 'a' and 'b'. */
 const row = (s: string) => Array.from(s, (ch) => (ch === "a" ? 0 : 1));
@@ -95,6 +95,79 @@ describe("getRowFloats", () => {
         expect(round.longest).toBeGreaterThanOrEqual(flat.longest);
         for (const f of [...flat.long, ...round.long]) expect(f.length).toBeGreaterThan(limit);
       }),
+    );
+  });
+});
+
+describe("staggered catches: never on the same stitch two rows running", () => {
+  test.each([
+    // 7 stitches, limit 5: one catch, at 4 (pieces 4 + 3); the next row keeps off 4 → 3 (3 + 4).
+    [7, 5, [4], [3]],
+    // 10 stitches, limit 5: the only single catch is at 5; the next row needs two (3 + 3 + 4 → 3, 6).
+    [10, 5, [5], [3, 6]],
+    // 12 stitches, limit 5: catches at 4 and 8; the next row 3 and 7 (3 + 4 + 4 + 1 is no better).
+    [12, 5, [4, 8], [3, 7]],
+  ])("a float of %i stitches, limit %i: %j, then %j", (n, limit, first, second) => {
+    expect(getCatchOffsets(n, limit)).toEqual(first);
+    expect(getStaggeredOffsets(0, n, limit, 40, new Set(first))).toEqual(second);
+  });
+
+  test("in a row: the row below's catches of the same colour are kept off, the other colour's are not", () => {
+    // a run of 7 a (b carried) from stitch 2 in a 10-stitch round
+    const r = row("baaaaaaabb");
+    const plain = getRowFloats(r, 5, true);
+    expect(plain.long[0]).toMatchObject({ carried: 1, start: 1, length: 7, catchAt: [5] });
+    const below = getCatchStitches(plain);
+    expect(getRowFloats(r, 5, true, below).long[0].catchAt).toEqual([4]);
+    // catches of colour a below do not matter to a float of b
+    expect(getRowFloats(r, 5, true, [new Set([5]), new Set()]).long[0].catchAt).toEqual([5]);
+  });
+
+  test("the same float row after row: no catch repeats in consecutive rows, every piece within the limit", () => {
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 2, max: 60 }),
+        fc.integer({ min: 2, max: 9 }),
+        fc.integer({ min: 0, max: 80 }),
+        fc.integer({ min: 1, max: 30 }),
+        fc.integer({ min: 2, max: 8 }),
+        (n, limit, start0, extra, rows) => {
+          const rowLength = n + extra;
+          const start = start0 % rowLength;
+          let below = new Set<number>();
+          for (let k = 0; k < rows; k++) {
+            const offsets = getStaggeredOffsets(start, n, limit, rowLength, below);
+            const cuts = [0, ...offsets, n];
+            for (let i = 1; i < cuts.length; i++) {
+              expect(cuts[i] - cuts[i - 1]).toBeGreaterThan(0);
+              expect(cuts[i] - cuts[i - 1]).toBeLessThanOrEqual(limit);
+            }
+            const here = new Set(offsets.map((o) => (start + o) % rowLength));
+            for (const s of here) expect(below.has(s), `row ${k + 1} catches stitch ${s} again`).toBe(false);
+            expect(offsets.length).toBeLessThanOrEqual(getCatchCount(n, limit) + 1);
+            below = here;
+          }
+        },
+      ),
+      { numRuns: 400 },
+    );
+  });
+
+  test("whole rows of floats in the round, the same pattern every row: no repeats, pieces within the limit", () => {
+    fc.assert(
+      fc.property(fc.array(fc.constantFrom(0, 1), { minLength: 2, maxLength: 60 }), fc.integer({ min: 2, max: 7 }), (cells, limit) => {
+        let below: ReturnType<typeof getCatchStitches> = [new Set(), new Set()];
+        for (let k = 0; k < 4; k++) {
+          const f = getRowFloats(cells, limit, true, below);
+          for (const fl of f.long) {
+            const cuts = [0, ...fl.catchAt.map((s) => (s - fl.start + cells.length) % cells.length), fl.length];
+            for (let i = 1; i < cuts.length; i++) expect(cuts[i] - cuts[i - 1]).toBeLessThanOrEqual(limit);
+            for (const s of fl.catchAt) expect(below[fl.carried].has(s)).toBe(false);
+          }
+          below = getCatchStitches(f);
+        }
+      }),
+      { numRuns: 300 },
     );
   });
 });

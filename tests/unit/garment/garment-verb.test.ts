@@ -8,7 +8,7 @@ import { describe, expect, test } from "vitest";
 import { parseChart, serializeChart } from "@/lib/core/chart/format";
 import { flipHorizontal } from "@/lib/core/chart/ops/flip";
 import { placeLettering } from "@/lib/core/chart/ops/place-lettering";
-import { buildGarment, placeCharts, readGarmentInput } from "@/lib/core/garment";
+import { areaShape, buildGarment, placeCharts, readGarmentInput } from "@/lib/core/garment";
 import { readLettering } from "@/lib/core/garment/lettering-check";
 import { sizeGarment } from "@/lib/core/sizing/size-garment";
 import { run } from "@/scripts/core-verbs/garment";
@@ -148,4 +148,69 @@ describe("the CLI", () => {
     expect(ok.status).toBe(0);
     expect((JSON.parse(ok.stdout) as VerbOutput).pieces.map((p) => p.name)).toEqual(["left mitten", "right mitten"]);
   }, 60_000);
+});
+
+describe("a round is the whole round", () => {
+  // A 2-st-wide gold motif either side of the start of the round is one motif: darned as one
+  // strand it has 2 ends; cut open at the start of the round it would be two strands and 4 ends.
+  test("a darned motif across the start of the round is one strand (cuff)", () => {
+    const cuff = area(sizing, "cuff");
+    const chart = chartV1(cuff, only((x, y) => ((x < 2 || x >= cuff.width - 2) && (y === 5 || y === 6) ? "C" : "A")), sizing);
+    const out = run({ size, charts: [{ area: "cuff", chart }], darn: ["C"] }) as VerbOutput;
+    for (const p of out.pieces) expect(p.features).toMatchObject({ duplicateStitches: 8, ends: 2 });
+  });
+
+  test("the palm's last stitch meets the back's first: a motif across them is one strand", () => {
+    // hand rows 26–27, above the gusset: back stitches 1–2 from the right, palm stitches 22–23
+    const b = chartV1(back, only((x, y) => (x >= back.width - 2 && (y === 25 || y === 26) ? "C" : "A")), sizing);
+    const palm = chartV1(area(sizing, "palm"), only((x, y) => (x < 2 && (y === 25 || y === 26) ? "C" : "A")), sizing);
+    const out = run({ size, charts: [{ area: "back of hand", chart: b }, { area: "palm", chart: palm }], darn: ["C"] }) as VerbOutput;
+    for (const p of out.pieces) expect(p.features).toMatchObject({ duplicateStitches: 8, ends: 2 });
+  });
+
+  test("back of hand and palm share the round's knitted pair: a colour only on the palm is carried round the back", () => {
+    const palm = chartV1(area(sizing, "palm"), only((x) => (x % 4 === 0 ? "B" : "A")), sizing);
+    const out = run({ size, charts: [{ area: "palm", chart: palm }] }) as VerbOutput;
+    // the red float across the 23-st back needs catches in every round where the palm is red and oat
+    const left = out.pieces[0].features;
+    expect(left.floatCatches).toBeGreaterThan(0);
+    expect(left.strandedStitches).toBe(area(sizing, "palm").stitches);
+  });
+});
+
+describe("pinned pairs", () => {
+  // Three colours in hand rows 5–6 (rounds 22–23): red on the back, gold on one palm stitch.
+  const b = chartV1(back, only((x, y) => (y >= 4 && y <= 5 && x % 2 ? "B" : "A")), sizing);
+  const palm = chartV1(area(sizing, "palm"), only((x, y) => (y >= 4 && y <= 5 && x === 20 ? "C" : "A")), sizing);
+  const charts = [{ area: "back of hand", chart: b }, { area: "palm", chart: palm }];
+
+  test("a pin over the three-colour rounds keeps its pair and darns the rest, on every piece it names", () => {
+    const out = run({ size, charts, pins: [{ fromRound: 22, toRound: 23, pair: ["A", "B"] }] }) as VerbOutput;
+    for (const p of out.pieces) expect(p.features.duplicateStitches).toBe(2);
+    const r22 = out.rounds.find((r) => r.piece === "right mitten" && r.part === "hand" && r.round === 22)!;
+    expect(r22).toMatchObject({ knit: ["A", "B"], darned: 1 });
+  });
+
+  test("a pin on one piece leaves the other to the three-colour rule", () => {
+    expect(() => run({ size, charts, pins: [{ piece: "left mitten", fromRound: 22, toRound: 23, pair: ["A", "B"] }] })).toThrow(/round 22 of the right mitten's hand/);
+  });
+
+  test.each<[unknown, RegExp]>([
+    [{ piece: "sock", fromRound: 1, toRound: 2, pair: ["A", "B"] }, /pins\[0\]\.piece: no piece 'sock'/],
+    [{ part: "cuff", fromRound: 1, toRound: 2, pair: ["A", "B"] }, /pins\[0\]\.part: the left mitten has no part 'cuff'; its parts are 'hand', 'thumb'/],
+    [{ part: "thumb", fromRound: 10, toRound: 17, pair: ["A", "B"] }, /pins\[0\]: rounds 10–17 are not rounds of the left mitten's thumb \(1–16\)/],
+    [{ fromRound: 1, toRound: 2, pair: ["A", "Z"] }, /pins\[0\]\.pair\[1\]: colour 'Z' is in no chart's palette/],
+  ])("a pin that cannot apply is refused: %o", (pin, message) => {
+    expect(() => run({ size, charts, pins: [pin] })).toThrow(message);
+  });
+});
+
+describe("areaShape (what the editor shows)", () => {
+  test("a child's back of hand: row 52 keeps 4 of 23 stitches, centred; every real stitch counted once", () => {
+    const shape = areaShape(buildGarment(size), "back of hand");
+    expect([shape.width, shape.height, shape.repeats]).toEqual([23, 52, 1]);
+    const top = Array.from(shape.inShape.slice(51 * 23, 52 * 23)).join("");
+    expect(top).toBe("00000000011110000000000");
+    expect(shape.inShape.reduce((s, v) => s + v, 0)).toBe(1045);
+  });
 });

@@ -149,9 +149,26 @@ describe("a women's M yoke pullover (20 sts and 28 rnds per 10 cm, an 8-st repea
     expect(body.features).toMatchObject({ strandedStitches: 0, plainStitches: 20600, shapingRounds: 0 });
     // one design for the garment: charted and proofed once
     expect(out.pieces.map((p) => p.features.newDesign)).toEqual([true, false, false, false]);
+    // body and sleeves are joined into the yoke: the pullover is blocked once, as one
+    expect(out.pieces.map((p) => (p.features as { blocked?: boolean }).blocked)).toEqual([false, false, false, true]);
     expect(left.features.shapingRounds).toBe(10);
     expect(right.features.shapingRounds).toBe(10);
     // the yoke's three decrease rounds
     expect(yoke.features.shapingRounds).toBe(3);
+  });
+});
+
+describe("yarn by the real underlay", () => {
+  const size = { garment: "mittens", size: "child", gauge: { stitchesPer10cm: 28, rowsPer10cm: 32 } };
+  const sizing = sizeGarment(size);
+  // Cuff row 9 in red with one gold stitch darned, the rest of the mitten oat. That round knits red
+  // only, so the gold goes over red: red 46 sts a mitten (45 red + the gold's underlay), 92 for the
+  // pair; oat 3,288 − 46 = 3,242 a mitten. (Before, every darned stitch was counted over the main colour.)
+  test("a darned stitch is knitted first in the colour of its round, not the main colour", () => {
+    const cuff = chartV1(area(sizing, "cuff"), (x, y) => (y === 8 ? (x === 10 ? "C" : "B") : "A"), sizing);
+    const out = run({ size, charts: [{ area: "cuff", chart: cuff }], darn: ["C"] }) as VerbOutput;
+    const knitted = Object.fromEntries(out.yarn.colours.map((c) => [c.key, c.knittedStitches]));
+    expect(knitted).toEqual({ A: 2 * 3242, B: 92, C: 0 });
+    expect(out.yarn.colours.find((c) => c.key === "C")!.darnedStitches).toBe(2);
   });
 });

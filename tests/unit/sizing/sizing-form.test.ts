@@ -99,12 +99,15 @@ test("property: whatever is typed in a length field, the form never throws and a
   );
 });
 
-test("property: a head measured in cm or the same head in inches (to 0.01 in) casts on within one repeat", () => {
+// A hat's count also closes the rib and divides into crown sectors, so neighbouring choices can be one
+// multiple of lcm(8, repeat) apart (a count that is a multiple of 8 and of the repeat costs nothing):
+// with a 4-st repeat, 8 sts.
+test("property: a head measured in cm or the same head in inches (to 0.01 in) casts on within lcm(8, repeat) sts", () => {
   fc.assert(
     fc.property(fc.integer({ min: 460, max: 620 }), (mm) => {
       const cm = sizeForm("hat", hat({ lengths: { headCircumference: String(mm / 10) }, repeat: "4" })).result!;
       const inches = sizeForm("hat", hat({ unit: "in", lengths: { headCircumference: String(Math.round((mm / 25.4) * 100) / 100) }, repeat: "4" })).result!;
-      expect(Math.abs(cm.castOn - inches.castOn)).toBeLessThanOrEqual(4);
+      expect(Math.abs(cm.castOn - inches.castOn)).toBeLessThanOrEqual(8);
     }),
   );
 });

@@ -53,6 +53,15 @@ describe("adult hat (22 in / 56 cm head, 10 % negative ease, default height)", (
     expect(y).toBeGreaterThanOrEqual(hat[0] * 0.5);
   });
 
+  // A folded-brim hat at the standard's woman's height (CYC hat heights: 11 in as worn) is the kind of hat
+  // the handbook's figures describe. Measured: cat 1 297 yd (300–375), cat 2 236 (250–350), cat 3 220,
+  // cat 4 173, cat 5 136, cat 6 90: within 0.9 × the lower bound and under the top at every weight.
+  test.each(PUBLISHED)("category $category folded-brim hat: within 0.9 × $hat yd", ({ category, hat }) => {
+    const y = yards(sizeGarment({ garment: "hat", measurements: { headCircumferenceIn: 22 }, gauge: gaugeFor(category), options: { style: "folded-brim" } }));
+    expect(y).toBeGreaterThanOrEqual(hat[0] * 0.9);
+    expect(y).toBeLessThanOrEqual(hat[1]);
+  });
+
   test("stranded work (about 25 % more, common practice) brings the worsted hat near the published range", () => {
     const y = yards(sizeGarment({ garment: "hat", measurements: { headCircumferenceIn: 22 }, gauge: gaugeFor(4) })) * 1.25;
     expect(y).toBeGreaterThan(150 * 0.85);
