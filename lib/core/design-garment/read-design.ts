@@ -5,7 +5,7 @@
 import type { Chart } from "../chart/model";
 import { planColours } from "../colourwork/colour-plan";
 import { garmentFeatures, garmentFromSizing, GarmentError, placeCharts } from "../garment";
-import type { ChartPlacement, FeatureOptions, Garment, GarmentReading, PlacedGarment } from "../garment";
+import type { ChartPlacement, FeatureOptions, Garment, GarmentReading, PlacedGarment, RoundPinInput } from "../garment";
 import type { PieceFeatures } from "../labour/piece-features";
 import type { SizingResult } from "../sizing/sizing-result";
 import { findPaintOutsideShape, outsideMessage } from "./shape";
@@ -65,6 +65,26 @@ export function matchArea(garment: Pick<Garment, "chartAreas">, slug: string): {
 }
 
 const strings = (v: unknown): string[] => (Array.isArray(v) ? v.filter((x): x is string => typeof x === "string") : []);
+
+/** Pins as stored in a chart's options, kept only when they have the core's shape (the core checks the rest). */
+function pinsOf(v: unknown): RoundPinInput[] {
+  if (!Array.isArray(v)) return [];
+  return v.flatMap((p): RoundPinInput[] => {
+    if (!p || typeof p !== "object") return [];
+    const o = p as Record<string, unknown>;
+    const pair = o.pair;
+    if (!Number.isInteger(o.fromRound) || !Number.isInteger(o.toRound) || !Array.isArray(pair) || pair.length !== 2 || !pair.every((k) => typeof k === "string")) return [];
+    return [
+      {
+        fromRound: o.fromRound as number,
+        toRound: o.toRound as number,
+        pair: [pair[0] as string, pair[1] as string],
+        ...(typeof o.piece === "string" ? { piece: o.piece } : {}),
+        ...(typeof o.part === "string" ? { part: o.part } : {}),
+      },
+    ];
+  });
+}
 
 /** True when some row of the chart holds more than two colours (so something must be darned). */
 function needsDarning(chart: Chart): boolean {
@@ -154,8 +174,9 @@ export function readDesignOnGarment(sizing: SizingResult, charts: DesignChartOnG
     }
     const keys = new Set(entry.chart.palette.map((c) => c.key));
     const darn = [...new Set([...chartDarn(entry), ...extraDarn])].filter((k) => keys.has(k));
+    const own = pinsOf(entry.options?.pins);
     try {
-      placeCharts(garment, [r.placement], { darn });
+      placeCharts(garment, [r.placement], { darn, ...(own.length ? { pins: own } : {}) });
       ok.push({ index, placement: r.placement, darn });
     } catch (e) {
       if (!(e instanceof GarmentError)) throw e;
@@ -163,10 +184,12 @@ export function readDesignOnGarment(sizing: SizingResult, charts: DesignChartOnG
     }
   });
   const darn = [...new Set(ok.flatMap((o) => o.darn))];
+  // The maker's pinned pairs ride on the charts' options (a design stores only its charts).
+  const pins = ok.flatMap((o) => pinsOf(charts[o.index].options?.pins));
   let placed: PlacedGarment;
   let placedCharts = ok.map((o) => o.index);
   try {
-    placed = placeCharts(garment, ok.map((o) => o.placement), { darn });
+    placed = placeCharts(garment, ok.map((o) => o.placement), { darn, ...(pins.length ? { pins } : {}) });
   } catch (e) {
     if (!(e instanceof GarmentError)) throw e;
     // Charts that fit one by one but not together (e.g. one palette key, two colours): price the plain garment and say why.
