@@ -244,6 +244,21 @@ export function SizingForm(props: {
                 <option value="yoke">Round yoke</option>
                 <option value="bands">Bands on body and sleeves</option>
               </select>
+              <label className="flex items-start gap-2">
+                <input type="checkbox" className="mt-1" disabled={!props.canEdit} {...form.register("backNeckShortRows")} />
+                <span>Raise the back neck with short rows (about 2.5 cm, worked below the neckband)</span>
+              </label>
+            </div>
+          ) : null}
+          {garment === "hat" ? (
+            <div className="flex flex-col gap-1">
+              <label htmlFor={`${base}-hat-style`} className="font-semibold">Style</label>
+              <p id={`${base}-hat-style-h`} className="text-sm text-bark">Taller and folded hats use the Craft Yarn Council hat heights (child 8½ in, teen 10, woman 11, man 11½).</p>
+              <select id={`${base}-hat-style`} aria-describedby={`${base}-hat-style-h`} disabled={!props.canEdit} className={`${input} w-full max-w-full border-bark/40`} {...form.register("style")}>
+                <option value="beanie">Fitted beanie</option>
+                <option value="tall">Taller, with some slouch</option>
+                <option value="folded-brim">Folded brim</option>
+              </select>
             </div>
           ) : null}
         </fieldset>

@@ -26,8 +26,13 @@ export const sizingFormSchema = z.strictObject({
   yarnCategory: z.string().max(2),
   repeat: z.string().max(20),
   thumb: z.enum(["gusset", "afterthought"]),
-  style: z.enum(["yoke", "bands"]),
+  /** pullovers: yoke | bands; hats: beanie | folded-brim | tall (a hat form saved before hat styles says "yoke": a beanie) */
+  style: z.enum(["yoke", "bands", "beanie", "folded-brim", "tall"]),
+  /** pullovers: raise the back neck with short rows */
+  backNeckShortRows: z.boolean().optional(),
 });
+
+const HAT_STYLES: readonly string[] = ["beanie", "folded-brim", "tall"];
 
 export type SizingFormValues = z.infer<typeof sizingFormSchema>;
 export type FieldErrors = Record<string, string[]>;
@@ -67,7 +72,7 @@ export function toSizeInput(garmentKind: "mittens" | "hat" | "pullover" | Garmen
   const errors: FieldErrors = {};
   const unit = values.unit === "cm" ? "Cm" : "In";
   const measurements: Record<string, number> = {};
-  const options: Record<string, number | string> = {};
+  const options: Record<string, number | string | boolean> = {};
   const f = GARMENT_FIELDS[garment];
   for (const { name, kind } of lengthFields(garment)) {
     const v = readNumber(values.lengths[name] ?? "", `lengths.${name}`, errors);
@@ -93,6 +98,8 @@ export function toSizeInput(garmentKind: "mittens" | "hat" | "pullover" | Garmen
 
   if (garment === "mitten") options.thumb = values.thumb;
   if (garment === "pullover") options.style = values.style;
+  if (garment === "hat" && HAT_STYLES.includes(values.style)) options.style = values.style;
+  if (garment === "pullover" && values.backNeckShortRows) options.backNeckShortRows = true;
   const over = values.gaugeOver === "10cm" ? "Per10cm" : "Per4in";
   const input: SizeGarmentInput = {
     garment,
@@ -179,6 +186,6 @@ export function defaultSizingForm(
     yarnCategory: "1",
     repeat: "",
     thumb: "gusset",
-    style: "yoke",
+    style: garment === "hat" ? "beanie" : "yoke",
   };
 }

@@ -44,10 +44,12 @@ for (const c of cases) {
   const sizing = sizeGarment(c.size);
   const charts = c.charts(sizing).map((p) => ({ area: p.area, chart: parseChart(p.chart) }));
   const before = estimateLabour({ pieces: piecesFromCharts(charts.map((p) => ({ label: p.area, chart: p.chart }))) });
+  const t0 = performance.now();
   const after = garmentFeatures(placeCharts(buildGarment(c.size), charts, { darn: c.darn }));
+  const ms = performance.now() - t0;
   const priced = charts.reduce((s, p) => s + p.chart.width * p.chart.height, 0);
   const total = sizing.pieces.reduce((s, p) => s + p.stitches * p.quantity, 0);
-  console.log(`\n${c.name}`);
+  console.log(`\n${c.name} (built, placed and read in ${ms.toFixed(0)} ms)`);
   console.log(`  pieces: ${after.pieces.map((p) => `${p.name} ${p.stitches} (plain ${p.features.plainStitches}, stranded ${p.features.strandedStitches}, darned ${p.features.duplicateStitches})`).join("; ")}`);
   console.log(`  stitches: garment ${total}; charted cells priced before ${priced}`);
   for (const stage of ["design", "knitting", "embroidery", "blocking", "finishing"] as const) {

@@ -22,11 +22,21 @@ export {
   type DarningWork,
 } from "./darning-rates";
 export { getCiede2000, getColourDifference, hexToLab, type Lab } from "./ciede2000";
-export { getCatchCount, getFloatLimitStitches, getRowFloats, type RowFloat, type RowFloatSummary } from "./row-floats";
+export {
+  getCatchCount,
+  getCatchStitches,
+  getFloatLimitStitches,
+  getRowFloats,
+  getStaggeredOffsets,
+  type CatchAvoid,
+  type RowFloat,
+  type RowFloatSummary,
+} from "./row-floats";
 export {
   planRoundPairs,
   type DarnedStitch,
   type RoundColour,
+  type RoundDarning,
   type RoundPairRound,
   type RoundPairsInput,
   type RoundPairsOptions,

@@ -163,6 +163,29 @@ export function garmentFromSizing(sizing: SizingResult): Garment {
       const main = buildPart(sizing, sp, sizing.garment === "mitten" ? "hand" : sp.name, side);
       const parts = [main.part];
       const areas = [...main.areas];
+      // Short rows (a back neck raised before the neckband) are rows, not rounds: a part of their own.
+      const short = (sp.shortRows ?? []).flatMap((r) => r.stitches);
+      if (short.length > 0) {
+        const rounds: GarmentRound[] = short.map((n, r) => ({
+          index: r,
+          stitches: n,
+          shaping: false,
+          spans: [{ area: "back-neck short rows", repeat: 0, row: -1, columns: new Array<number>(n).fill(-1), frameStart: 0 }],
+        }));
+        parts.push({ name: "back-neck short rows", frameWidth: Math.max(...short), rounds });
+        areas.push({
+          name: "back-neck short rows",
+          part: "back-neck short rows",
+          charted: false,
+          width: Math.max(...short),
+          height: short.length,
+          repeats: 1,
+          fromRound: 0,
+          rowStitches: short,
+          narrowing: "even",
+          stitches: short.reduce((a, b) => a + b, 0),
+        });
+      }
       if (withThumb) {
         const t = buildPart(sizing, withThumb, "thumb", side);
         parts.push(t.part);

@@ -94,6 +94,8 @@ function readPart(
     { rounds: rows.map((row) => Array.from(row, (c) => toLocal.get(c)!)), palette: local.map((c) => ({ key: palette[c].key, name: palette[c].name, hex: palette[c].hex })), gauge },
     {
       darn: darnedHere.map((c) => palette[c].key),
+      // the darning route is made below on the garment's own layout (areas aligned round to round)
+      route: false,
       ...(pins.length > 0 ? { pins: pins.map((p) => ({ fromRound: p.fromRound, toRound: p.toRound, pair: p.pair })) } : {}),
       ...(opts.floatLimitStitches !== undefined ? { floatLimitStitches: opts.floatLimitStitches } : {}),
       ...(opts.floatLimitCm !== undefined ? { floatLimitCm: opts.floatLimitCm } : {}),

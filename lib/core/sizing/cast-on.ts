@@ -44,3 +44,19 @@ export function nearestMultiple(x: number, m: number): number {
 export function ceilMultiple(x: number, m: number): number {
   return Math.max(m, m * Math.ceil(x / m - TIE_EPSILON));
 }
+
+export function lcm(a: number, b: number): number {
+  const gcd = (x: number, y: number): number => (y === 0 ? x : gcd(y, x % y));
+  return (a / gcd(a, b)) * b;
+}
+
+/**
+ * A cast-on in the round whose rib closes: the multiple of lcm(2, repeat) nearest the target (a tie
+ * up), so front and back (or a k1, p1 rib) split evenly; refuses a repeat wider than the piece. Only
+ * when the piece holds a single odd repeat is the count the repeat itself.
+ */
+export function getEvenCastOn(targetCm: number, perCm: number, repeat: number, field = "repeat", piece = "piece"): number {
+  const plain = getCastOn(targetCm, perCm, repeat, field, piece);
+  const unit = lcm(2, repeat);
+  return targetCm * perCm + TIE_EPSILON >= unit ? getCastOn(targetCm, perCm, unit, field, piece) : plain;
+}

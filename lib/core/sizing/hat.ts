@@ -1,7 +1,7 @@
 // A hat, bottom up in the round: ribbed brim, straight body (the colourwork band), crown decreased in
 // sectors and drawn together. Decorated areas: band (whole round) and crown (one sector, repeated).
 import type { Gauge } from "../chart/model";
-import { getCastOn, getRows, nearestMultiple } from "./cast-on";
+import { getCastOn, getRows, lcm, nearestMultiple } from "./cast-on";
 import type { TemplateOutput } from "./mitten";
 import { IMPERIAL, METRIC, ribFor, type UnitWriter } from "./recipe-text";
 import type { ChartArea, Piece } from "./sizing-result";
@@ -54,11 +54,6 @@ export const HAT_CAST_ON_PENALTY_CM = {
   /** a k1, p1 brim where k2, p2 would not close */
   k1p1Rib: 1,
 } as const;
-
-function lcm(a: number, b: number): number {
-  const gcd = (x: number, y: number): number => (y === 0 ? x : gcd(y, x % y));
-  return (a / gcd(a, b)) * b;
-}
 
 /**
  * The hat's cast-on: a multiple of the repeat and of 2 (the brim rib), divided into whole crown

@@ -2,7 +2,7 @@
 // on one needle for a circular yoke with three decrease rounds, neckband. Colourwork either in the
 // yoke (a chart per yoke section) or in bands above the hem and the cuffs.
 import type { Gauge } from "../chart/model";
-import { ceilMultiple, getCastOn, getRows, nearestEven, nearestMultiple } from "./cast-on";
+import { ceilMultiple, getEvenCastOn, getRows, lcm, nearestEven, nearestMultiple } from "./cast-on";
 import type { TemplateOutput } from "./mitten";
 import { IMPERIAL, METRIC, everyNth, ribFor, type UnitWriter } from "./recipe-text";
 import type { ChartArea, Piece } from "./sizing-result";
@@ -111,7 +111,8 @@ export function sizePullover(spec: PulloverSpec): TemplateOutput {
     return v;
   };
 
-  const body = getCastOn(spec.chestCm + spec.easeCm, spc, spec.repeat, "repeat", "body");
+  // Even, so back and front split evenly and the hem rib closes (a multiple of lcm(2, repeat)).
+  const body = getEvenCastOn(spec.chestCm + spec.easeCm, spc, spec.repeat, "repeat", "body");
   const chestFinishedCm = body / spc;
   const fit = chestFinishedCm / spec.chestCm; // the body's ease, carried to measured arms
   const upperTarget = spec.upperArmCm !== undefined ? spec.upperArmCm * fit * spc : P.upperArmPerBody * body;
@@ -121,11 +122,13 @@ export function sizePullover(spec: PulloverSpec): TemplateOutput {
   if (spec.wristCm === undefined && wristTarget < P.wristPerBody * body) derived.wristCm = roundTo(spec.wristEstimateCm, 0.1);
 
   const cuff =
-    spec.style === "bands" ? getCastOn(wristTarget / spc, spc, spec.repeat, "repeat", "sleeve cuff") : nearestEven(wristTarget, 4);
+    spec.style === "bands" ? getEvenCastOn(wristTarget / spc, spc, spec.repeat, "repeat", "sleeve cuff") : nearestEven(wristTarget, 4);
   const upper = Math.max(cuff, cuff + 2 * Math.round((upperTarget - cuff) / 2));
   const underarm = Math.min(nearestEven(P.underarmPerBody * body, 2), upper - 2);
   const join = body - 2 * underarm + 2 * (upper - underarm);
   const unit = spec.style === "yoke" ? spec.repeat : 2;
+  // the neckband's rib closes on an even count
+  const neckUnit = lcm(2, unit);
   const yokeStart = nearestMultiple(join, unit);
   // The neck follows the percentage system unless the wearer's head would not pass through it.
   const neckMinSts = spec.headCircumferenceCm !== undefined ? (spec.headCircumferenceCm / P.neckStretch) * spc : 0;
@@ -137,7 +140,7 @@ export function sizePullover(spec: PulloverSpec): TemplateOutput {
   const y2 = nearestMultiple(yokeStart * q * q, unit);
   // A measured head sets a minimum: round up to the repeat, never below it.
   const neck =
-    neckMinSts > 0 ? Math.max(nearestMultiple(neckPercent, unit), ceilMultiple(neckMinSts, unit)) : nearestMultiple(neckTarget, unit);
+    neckMinSts > 0 ? Math.max(nearestMultiple(neckPercent, neckUnit), ceilMultiple(neckMinSts, neckUnit)) : nearestMultiple(neckTarget, neckUnit);
   const yokeCounts = [yokeStart, Math.min(y1, yokeStart), Math.min(y2, y1, yokeStart), Math.min(neck, y2, y1, yokeStart)];
   if (yokeCounts[1] === yokeCounts[0] || yokeCounts[2] === yokeCounts[1] || yokeCounts[3] === yokeCounts[2]) {
     warnings.push(`a repeat of ${spec.repeat} sts is too wide for three yoke decreases: some yoke sections keep the same count`);
@@ -208,7 +211,7 @@ export function sizePullover(spec: PulloverSpec): TemplateOutput {
   });
   const neckSts = yokeCounts[3];
   const shortRows = spec.backNeckShortRows ? planBackNeckShortRows(neckSts, getRows(P.backNeckRaiseCm, rpc)) : null;
-  if (shortRows) yokeT.partial(shortRows.stitches);
+  if (shortRows) yokeT.partial(shortRows.stitches, shortRows.rowLengths);
   yokeT.plain(neckRows);
   const headCheckCm = spec.headCircumferenceCm ?? spec.assumedHead.cm;
   if ((neckSts / spc) * P.neckStretch < headCheckCm - 1e-9) {
@@ -267,7 +270,7 @@ export function sizePullover(spec: PulloverSpec): TemplateOutput {
   const pieces: Piece[] = [
     { name: "body", quantity: 1, start: "long-tail", castOn: body, castOnWidthCm: roundTo(body / spc, 0.1), bindOff: 0, stitches: bodyT.total, rounds: bodyT.counts },
     { name: "sleeve", quantity: 2, start: "long-tail", castOn: cuff, castOnWidthCm: roundTo(cuff / spc, 0.1), bindOff: 0, stitches: sleeveT.total, rounds: sleeveT.counts },
-    { name: "yoke", quantity: 1, start: "joined", castOn: 0, castOnWidthCm: 0, bindOff: neckSts, stitches: yokeT.total, rounds: yokeT.counts },
+    { name: "yoke", quantity: 1, start: "joined", castOn: 0, castOnWidthCm: 0, bindOff: neckSts, stitches: yokeT.total, rounds: yokeT.counts, ...(yokeT.shortRows.length ? { shortRows: yokeT.shortRows } : {}) },
   ];
 
   const write = (u: UnitWriter): string[] => {

@@ -40,8 +40,10 @@ export interface Piece {
   bindOff: number;
   /** every stitch knitted in one piece */
   stitches: number;
-  /** stitches of each round after its shaping, from the first round; they sum to `stitches` */
+  /** stitches of each round after its shaping, from the first round; with `shortRows` they sum to `stitches` */
   rounds?: number[];
+  /** rows worked back and forth over part of the round (back-neck short rows): each row's stitches, after which round */
+  shortRows?: { afterRound: number; stitches: number[] }[];
 }
 
 export interface SizingResult {

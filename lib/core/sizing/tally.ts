@@ -23,9 +23,12 @@ export class Tally {
     this.rows += 1;
     this.counts.push(after);
   }
-  /** stitches worked in partial rows (short rows) that are not whole rounds */
-  partial(stitches: number): void {
+  /** rows that are not whole rounds (short rows), each row's stitches, after which round */
+  shortRows: { afterRound: number; stitches: number[] }[] = [];
+  /** stitches worked in partial rows (short rows) that are not whole rounds; `rows` lists each row's */
+  partial(stitches: number, rows: number[] = [stitches]): void {
     this.total += stitches;
+    this.shortRows.push({ afterRound: this.counts.length, stitches: rows });
   }
   /** stitches put on hold or cast on between rounds (no yarn knitted) */
   set(count: number): void {

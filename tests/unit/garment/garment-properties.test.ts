@@ -21,13 +21,14 @@ const sizeInputArb = fc.oneof(
     size: fc.constantFrom("baby", "toddler", "child", "teen", "woman", "man"),
     gauge: fc.record({ stitchesPer10cm: fc.integer({ min: 18, max: 28 }), rowsPer10cm: fc.integer({ min: 24, max: 36 }) }),
     repeat: fc.constantFrom(1, 2, 4, 6),
+    options: fc.record({ style: fc.constantFrom("beanie", "folded-brim", "tall") }),
   }),
   fc.record({
     garment: fc.constant("pullover"),
     size: fc.constantFrom("women-XS", "women-S"),
     gauge: fc.record({ stitchesPer10cm: fc.integer({ min: 12, max: 16 }), rowsPer10cm: fc.integer({ min: 16, max: 22 }) }),
     repeat: fc.constantFrom(1, 4, 8),
-    options: fc.record({ style: fc.constantFrom("yoke", "bands") }),
+    options: fc.record({ style: fc.constantFrom("yoke", "bands"), backNeckShortRows: fc.boolean() }),
   }),
 );
 

@@ -214,3 +214,21 @@ describe("areaShape (what the editor shows)", () => {
     expect(shape.inShape.reduce((s, v) => s + v, 0)).toBe(1045);
   });
 });
+
+describe("the knitted pair round by round", () => {
+  test("red in hand rows 1–10 and navy in rows 21–30: the pair changes between them, two ends each", () => {
+    const b = chartV1(back, only((x, y) => (y < 10 && x % 3 === 0 ? "B" : y >= 20 && y < 30 && x % 3 === 1 ? "D" : "A")), sizing);
+    const out = run({ size, charts: [{ area: "back of hand", chart: b }] }) as VerbOutput & { rounds: { why?: string }[] };
+    const hand = out.rounds.filter((r) => r.piece === "left mitten" && r.part === "hand");
+    // hand row 1 is round 18 (after the 17 cuff rounds)
+    expect(hand[17].knit).toEqual(["A", "B"]);
+    expect(hand[26].knit).toEqual(["A", "B"]);
+    expect(hand[37].knit).toEqual(["A", "D"]);
+    expect(hand.every((r) => r.knit.length <= 2)).toBe(true);
+    // where navy is first knitted, the round says why its pair changed
+    const joined = hand.find((r) => r.knit.includes("D")) as { why?: string };
+    expect(joined.why).toMatch(/pair changes here/);
+    // red joined and cut, navy joined and cut: 4 ends to weave in on each mitten
+    for (const p of out.pieces) expect(p.features.ends).toBe(4);
+  });
+});

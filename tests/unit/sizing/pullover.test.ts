@@ -2,7 +2,7 @@
 // Without Tears, 1971; from memory) is held to body measurements at large sizes.
 import fc from "fast-check";
 import { describe, expect, test } from "vitest";
-import { ceilMultiple } from "@/lib/core/sizing/cast-on";
+import { ceilMultiple, getEvenCastOn } from "@/lib/core/sizing/cast-on";
 import { getPercentCuffTarget, getPercentYokeDepthCm, planBackNeckShortRows } from "@/lib/core/sizing/pullover";
 import { sizeGarment } from "@/lib/core/sizing/size-garment";
 import { getAssumedHead, getWristEstimateCm, getYokeDepthCapCm } from "@/lib/core/sizing/standard-sizes";
@@ -25,13 +25,13 @@ describe("the head a neck is checked against when none is measured", () => {
     expect(getAssumedHead(size, chest).cm).toBe(cm);
   });
 
-  test("a women's M with no head measured is warned: a 40.5 cm neck may not pass over a 56.5 cm head", () => {
-    // body (94 + 7.5) × 2.2 = 223.3 → 223 sts; neck 0.4 × 223 = 89.2 → 89 sts = 40.45 cm; a rib stretching
-    // about a third (memory) reaches 53.9 cm < 56.5 cm (the woman's row). Before, the check used a 48 cm
-    // toddler's head and said nothing.
+  test("a women's M with no head measured is warned: a 40.9 cm neck may not pass over a 56.5 cm head", () => {
+    // body (94 + 7.5) × 2.2 = 223.3 → 224 sts (even); neck 0.4 × 224 = 89.6 → 90 sts = 40.9 cm; a rib
+    // stretching about a third (memory) reaches 54.5 cm < 56.5 cm (the woman's row). Before, the check
+    // used a 48 cm toddler's head and said nothing.
     const r = sizeGarment({ garment: "pullover", size: "women-M", gauge: GAUGE });
-    expect(r.counts.neck).toBe(89);
-    expect(neckWarning(r.warnings)).toMatch(/neck opening is 40\.5 cm around.*56\.5 cm head \(a typical woman's head/);
+    expect(r.counts.neck).toBe(90);
+    expect(neckWarning(r.warnings)).toMatch(/neck opening is 40\.9 cm around.*56\.5 cm head \(a typical woman's head/);
   });
 
   test("a neck that passes over the assumed head is not warned", () => {
@@ -125,25 +125,26 @@ describe("percentage method held to the body at large sizes", () => {
   });
 
   test("men's XL at 22 sts / 10 cm: a 21.8 cm cuff (not 25.5) and a 26 cm yoke (not 28)", () => {
-    // body (119.4 + 7.5) × 2.2 = 279.2 → 279 sts = 126.8 cm. Percentage cuff 0.2 × 279 = 55.8 sts (25.4 cm);
-    // cap (18.4 + 3.8) × 2.2 = 48.8 → 48 sts = 21.8 cm. Yoke 0.22 × 126.8 = 27.9 cm; cap 26.0 cm
+    // body (119.4 + 7.5) × 2.2 = 279.2 → 280 sts (even) = 127.3 cm. Percentage cuff 0.2 × 280 = 56 sts
+    // (25.5 cm); cap (18.4 + 3.8) × 2.2 = 48.8 → 48 sts = 21.8 cm. Yoke 0.22 × 127.3 = 28.0 cm; cap 26.0 cm
     const r = sizeGarment({ garment: "pullover", size: "men-XL", gauge: GAUGE });
-    expect(r.counts.body).toBe(279);
+    expect(r.counts.body).toBe(280);
     expect(r.counts.sleeveCastOn).toBe(48);
     expect(r.finished.cuff.cm).toBe(21.8);
     expect(r.measurements.yokeDepthCm.cm).toBe(26);
     expect(r.measurements.wristCm).toMatchObject({ cm: 18.4, from: "derived" });
   });
 
-  test("a women's M keeps its percentage counts (44-st cuff, 22.3 cm yoke)", () => {
-    // cuff: 0.2 × 223 = 44.6 against a cap of (15.9 + 3.8) × 2.2 = 43.3: both round to 44 sts
+  test("a women's M keeps its percentage counts (44-st cuff, 22.4 cm yoke under its 22.9 cm cap)", () => {
+    // cuff: 0.2 × 224 = 44.8 against a cap of (15.9 + 3.8) × 2.2 = 43.3: both round to 44 sts;
+    // yoke 0.22 × 224 / 2.2 = 22.4 cm
     const r = sizeGarment({ garment: "pullover", size: "women-M", gauge: GAUGE });
     expect(r.counts.sleeveCastOn).toBe(44);
-    expect(r.measurements.yokeDepthCm.cm).toBe(22.3);
+    expect(r.measurements.yokeDepthCm.cm).toBe(22.4);
   });
 
   test("a women's 5X neck is held to the head: 124 sts, not 143", () => {
-    // body (154.9 + 7.5) × 2.2 = 357.3 → 357; 0.4 × 357 = 142.8 sts = 65 cm; a 56.5 cm woman's head × 2.2
+    // body (154.9 + 7.5) × 2.2 = 357.3 → 358 (even); 0.4 × 358 = 143.2 sts = 65 cm; a 56.5 cm woman's head × 2.2
     // = 124.3 → 124 sts = 56.4 cm (a neck wider than the head only gapes; ours)
     const r = sizeGarment({ garment: "pullover", size: "women-5X", gauge: GAUGE });
     expect(r.counts.neck).toBe(124);
@@ -153,7 +154,7 @@ describe("percentage method held to the body at large sizes", () => {
     const r = sizeGarment({ garment: "pullover", size: "men-XL", measurements: { wristCm: 20 }, gauge: GAUGE, options: { yokeDepthCm: 28 } });
     expect(r.measurements.yokeDepthCm).toBeUndefined();
     expect(r.rows.yoke).toBe(84); // 28 cm × 3 rnds/cm
-    // wrist 20 × the body's fit (126.8 / 119.4) × 2.2 = 46.7 → 46 sts
+    // wrist 20 × the body's fit (127.3 / 119.4) × 2.2 = 46.9 → 46 sts
     expect(r.counts.sleeveCastOn).toBe(46);
   });
 });
@@ -191,5 +192,51 @@ describe("back-neck short rows (an option)", () => {
 
   test("short rows are for pullovers only", () => {
     expect(() => sizeGarment({ garment: "hat", size: "woman", gauge: GAUGE, options: { backNeckShortRows: true } })).toThrow(/options\.backNeckShortRows: applies to pullovers only/);
+  });
+});
+
+describe("a pullover's body and neck are even, so the ribs close and back and front split evenly", () => {
+  test.each([
+    // perCm = 1: repeat 1 → multiples of 2; 223.3 / 2 = 111.65 → 224; exactly 223 (111.5, a tie) → 224
+    { raw: 223.3, repeat: 1, expected: 224 },
+    { raw: 223, repeat: 1, expected: 224 },
+    { raw: 222.9, repeat: 1, expected: 222 },
+    // repeat 3 → multiples of 6: 225 / 6 = 37.5, a tie → 228; 224.9 → 222
+    { raw: 225, repeat: 3, expected: 228 },
+    { raw: 224.9, repeat: 3, expected: 222 },
+    // a single odd repeat wider than half the piece stays one repeat
+    { raw: 9, repeat: 7, expected: 7 },
+  ])("$raw sts, repeat $repeat → $expected", ({ raw, repeat, expected }) => {
+    expect(getEvenCastOn(raw, 1, repeat)).toBe(expected);
+  });
+
+  test("property: body, cuffs and neck are even and the body and sleeve ribs never end k1", () => {
+    fc.assert(
+      fc.property(
+        fc.record({
+          chest: fc.double({ min: 60, max: 150, noNaN: true }),
+          sts: fc.double({ min: 16, max: 34, noNaN: true }),
+          repeat: fc.integer({ min: 1, max: 9 }),
+          style: fc.constantFrom("yoke" as const, "bands" as const),
+        }),
+        ({ chest, sts, repeat, style }) => {
+          const r = sizeGarment({
+            garment: "pullover",
+            measurements: { chestCm: chest, bodyLengthCm: 0.4 * chest, sleeveLengthCm: 0.45 * chest },
+            gauge: { stitchesPer10cm: sts, rowsPer10cm: sts * 1.35 },
+            repeat,
+            options: { style },
+          });
+          expect(r.counts.body % 2).toBe(0);
+          expect(r.counts.body % repeat).toBe(0);
+          expect(r.counts.sleeveCastOn % 2).toBe(0);
+          // the neck is even unless an odd repeat's previous section (a multiple of the repeat) holds it
+          expect(r.counts.neck % 2 === 0 || r.counts.neck >= r.counts.yokeDecrease2).toBe(true);
+          const bodyAndSleeves = r.recipe.metric.filter((l) => /^(Body|Sleeves)/.test(l)).join(" ");
+          expect(bodyAndSleeves).not.toMatch(/ending k1/);
+        },
+      ),
+      { numRuns: 200 },
+    );
   });
 });

@@ -67,6 +67,21 @@ describe("a good form sizes exactly as the core does", () => {
     expect(result?.castOn).toBe(sizeGarment(input).castOn);
   });
 
+  test("a hat's style goes to the core; a hat form saved before hat styles (style yoke) is a beanie", () => {
+    expect(toSizeInput("hat", hat({ size: "woman", style: "folded-brim" })).input?.options).toEqual({ style: "folded-brim" });
+    expect(toSizeInput("hat", hat({ size: "woman" })).input?.options).toEqual({ style: "beanie" });
+    expect(toSizeInput("hat", hat({ size: "woman", style: "yoke" })).input?.options).toBeUndefined();
+    const { result } = sizeForm("hat", hat({ size: "woman", style: "tall" }));
+    expect(result?.style).toBe("tall");
+  });
+
+  test("a pullover's back-neck short rows go to the core only when ticked", () => {
+    const pullover = (over: Partial<SizingFormValues>) => ({ ...defaultSizingForm("pullover", {}, []), size: "women-M", ...over });
+    expect(toSizeInput("pullover", pullover({ backNeckShortRows: true })).input?.options).toEqual({ style: "yoke", backNeckShortRows: true });
+    expect(toSizeInput("pullover", pullover({ backNeckShortRows: false })).input?.options).toEqual({ style: "yoke" });
+    expect(sizeForm("pullover", pullover({ backNeckShortRows: true })).result?.rows.backNeckShortRows).toBeGreaterThan(0);
+  });
+
   test("a decimal comma is read as a point", () => {
     expect(toSizeInput("hat", hat({ lengths: { headCircumference: "55,5" } })).input?.measurements).toEqual({ headCircumferenceCm: 55.5 });
   });
@@ -119,6 +134,9 @@ test("a core field the form has no place for is shown on the form as a whole", (
 test("the saved form's shape is bounded: unknown fields and a flood of lengths are refused", async () => {
   const { sizingFormSchema } = await import("@/lib/schemas/sizing");
   expect(sizingFormSchema.safeParse(hat()).success).toBe(true);
+  // a form saved before hat styles and short rows still reads
+  expect(sizingFormSchema.safeParse({ ...hat(), style: "yoke" }).success).toBe(true);
+  expect(sizingFormSchema.safeParse({ ...hat(), style: "bobble" }).success).toBe(false);
   expect(sizingFormSchema.safeParse({ ...hat(), extra: 1 }).success).toBe(false);
   const flood = Object.fromEntries(Array.from({ length: 21 }, (_, i) => [`x${i}`, "1"]));
   expect(sizingFormSchema.safeParse(hat({ lengths: flood })).success).toBe(false);
