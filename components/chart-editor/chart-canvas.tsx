@@ -23,6 +23,8 @@ export interface ChartCanvasProps {
   /** float marks or a route step, drawn over the stitches */
   marks?: CellMark[];
   cursor?: Point | null;
+  /** the area's shape (1 = a real stitch, row-major from the bottom); cells at 0 are drawn hatched: never knitted */
+  shape?: Uint8Array | null;
   label: string;
   onCellDown?: (p: Point, e: PointerEvent<HTMLCanvasElement>) => void;
   onCellMove?: (p: Point, e: PointerEvent<HTMLCanvasElement>) => void;
@@ -42,7 +44,7 @@ export function chartPixelSize(chart: Chart, zoom: number) {
 }
 
 export function ChartCanvas(props: ChartCanvasProps) {
-  const { chart, zoom, selection, marks, cursor } = props;
+  const { chart, zoom, selection, marks, cursor, shape } = props;
   const ref = useRef<HTMLCanvasElement>(null);
   const rowPx = getRowPx(chart, zoom, "gauge");
   const size = chartPixelSize(chart, zoom);
@@ -78,6 +80,25 @@ export function ChartCanvas(props: ChartCanvasProps) {
     }
     ctx.textAlign = "start";
     const cellRect = (x: number, y: number) => [x * zoom, (chart.height - 1 - y) * rowPx, zoom, rowPx] as const;
+    // Outside the area's shape (a narrowing top, a crown sector's end): greyed and hatched, not knitted.
+    if (shape && shape.length === chart.width * chart.height) {
+      for (let y = 0; y < chart.height; y++) {
+        for (let x = 0; x < chart.width; x++) {
+          if (shape[y * chart.width + x]) continue;
+          const [cx, cy, cw, ch] = cellRect(x, y);
+          ctx.fillStyle = "rgba(120,120,120,0.72)";
+          ctx.fillRect(cx, cy, cw, ch);
+          if (cw >= 5) {
+            ctx.strokeStyle = "rgba(255,255,255,0.8)";
+            ctx.lineWidth = 1;
+            ctx.beginPath();
+            ctx.moveTo(cx, cy + ch);
+            ctx.lineTo(cx + cw, cy);
+            ctx.stroke();
+          }
+        }
+      }
+    }
     if (marks?.length) {
       ctx.lineWidth = Math.max(1, Math.round(zoom / 6));
       for (const m of marks) {
@@ -111,7 +132,7 @@ export function ChartCanvas(props: ChartCanvasProps) {
       ctx.lineWidth = 2;
       ctx.strokeRect(cx + 1, cy + 1, cw - 2, ch - 2);
     }
-  }, [chart, zoom, rowPx, selection, marks, cursor, size.width, size.height]);
+  }, [chart, zoom, rowPx, selection, marks, cursor, shape, size.width, size.height]);
 
   const toCell = (e: PointerEvent<HTMLCanvasElement>): Point => {
     const r = e.currentTarget.getBoundingClientRect();
@@ -130,6 +151,7 @@ export function ChartCanvas(props: ChartCanvasProps) {
       data-testid="chart-canvas"
       data-zoom={zoom}
       data-row-px={rowPx}
+      data-outside-cells={shape ? shape.length - shape.reduce((s, v) => s + v, 0) : 0}
       className="block focus-visible:outline focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-loch"
       style={{ touchAction: props.touchAction ?? "none", width: size.width, height: size.height }}
       onKeyDown={props.onKeyDown}

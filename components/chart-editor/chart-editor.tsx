@@ -36,6 +36,9 @@ import {
   type Rect,
 } from "@/lib/core/chart";
 import { Button } from "@/components/ui/button";
+import type { ChartArea, SizingResult } from "@/lib/core/sizing";
+import type { RoundReading } from "@/lib/core/garment";
+import { areaShapeMask, hasOutsideCells, matchArea, outsideMessage } from "@/lib/core/design-garment";
 import { Notice } from "@/components/ui/notice";
 import { ChartCanvas, type CellMark } from "./chart-canvas";
 import {
@@ -94,6 +97,30 @@ export interface ChartEditorProps {
   /** the studio's pricing, for the live price (left out when the design has no commission) */
   livePricing?: LivePricing;
   inTheRound: boolean;
+  /** the commission's sizing (saved, else the brief, else a standard size): the garment the live price reads and the areas' shapes */
+  sizing?: SizingResult | null;
+  /** said beside the price when the sizing is a stand-in */
+  sizingNote?: string | null;
+}
+
+/** The sizing's chart area an entry is drawn for, when its size still matches. */
+function areaFor(sizing: SizingResult | null | undefined, slug: string, chart: Pick<Chart, "width" | "height">): ChartArea | null {
+  if (!sizing) return null;
+  const found = matchArea({ chartAreas: sizing.charts.map((c) => c.area) }, slug);
+  const area = found ? sizing.charts.find((c) => c.area === found.area) : undefined;
+  return area && area.width === chart.width && area.height === chart.height ? area : null;
+}
+
+/** The first cell an edit paints outside the shape (changed and not background), or null. */
+function newPaintOutside(before: Chart, next: Chart, shape: Uint8Array | null): { x: number; y: number } | null {
+  if (!shape || shape.length !== next.cells.length) return null;
+  const same = before.width === next.width && before.height === next.height;
+  for (let i = 0; i < next.cells.length; i++) {
+    if (shape[i] || next.cells[i] === 0) continue;
+    if (same && before.cells[i] === next.cells[i]) continue;
+    return { x: i % next.width, y: Math.floor(i / next.width) };
+  }
+  return null;
 }
 
 type SaveState =
@@ -146,6 +173,7 @@ export function ChartEditor(props: ChartEditorProps) {
   const [text, setText] = useState("");
   const [font, setFont] = useState<"5x7" | "3x5">("5x7");
   const [letterBox, setLetterBox] = useState<Rect | null>(null);
+  const [rounds, setRounds] = useState<RoundReading[] | null>(null);
   const [message, setMessage] = useState<{ tone: "error" | "success" | "info"; text: string } | null>(null);
   const [cursor, setCursor] = useState<Point | null>(null);
   const [marks, setMarks] = useState<CellMark[]>([]);
@@ -178,25 +206,33 @@ export function ChartEditor(props: ChartEditorProps) {
   }, [present.palette.length, colour, background]);
 
   const counts = useMemo(() => getStitchCounts(present), [present]);
-  const priceCharts = useMemo(() => entries.map((e) => ({ label: e.label, chart: e.history.present })), [entries]);
+  const priceCharts = useMemo(() => entries.map((e) => ({ area: e.area, label: e.label, chart: e.history.present, options: e.options })), [entries]);
+  const area = useMemo(() => areaFor(props.sizing, entry.area, present), [props.sizing, entry.area, present]);
+  const shape = useMemo(() => (area && hasOutsideCells(area) ? areaShapeMask(area) : null), [area]);
 
-  /** Replaces the active chart with an edited one (one undo step). */
+  /** Replaces the active chart with an edited one (one undo step); paint outside the area's shape is refused. */
   const apply = useCallback(
-    (next: Chart, layers?: LetteringLayer[]) => {
-      if (readOnly) return;
+    (next: Chart, layers?: LetteringLayer[]): boolean => {
+      if (readOnly) return false;
+      const outside = newPaintOutside(present, next, shape && next.width === present.width && next.height === present.height ? shape : null);
+      if (outside) {
+        setPreview(null);
+        setMessage({ tone: "error", text: `Not painted: ${outsideMessage(next, outside.x, outside.y)}.` });
+        return false;
+      }
       setEntries((all) => all.map((e, i) => (i === active ? commitEdit(book.current, e, next, layers) : e)));
       setRevision((r) => r + 1);
+      return true;
     },
-    [active, readOnly],
+    [active, readOnly, present, shape],
   );
 
   const run = useCallback(
     (fn: () => Chart | { chart: Chart; layers: LetteringLayer[] }) => {
       try {
         const out = fn();
-        if ("cells" in out) apply(out);
-        else apply(out.chart, out.layers);
-        setMessage(null);
+        const applied = "cells" in out ? apply(out) : apply(out.chart, out.layers);
+        if (applied) setMessage(null);
       } catch (e) {
         setMessage({ tone: "error", text: e instanceof Error ? e.message : String(e) });
       }
@@ -717,6 +753,7 @@ export function ChartEditor(props: ChartEditorProps) {
             selection={tool === "lettering" ? letterBox : selection}
             marks={marks}
             cursor={cursor}
+            shape={shape}
             label={`Chart ${entry.label}, ${present.width} stitches by ${present.height} rows. Tool: ${TOOLS.find((t) => t.id === tool)?.label}.${cursor ? ` Row ${cursor.y + 1}, stitch ${present.width - cursor.x}.` : ""}`}
             onCellDown={onDown}
             onCellMove={onMove}
@@ -727,6 +764,12 @@ export function ChartEditor(props: ChartEditorProps) {
         {cursor ? (
           <p className="text-sm" aria-live="polite">
             Row {cursor.y + 1}, stitch {present.width - cursor.x}
+            {shape && !shape[cursor.y * present.width + cursor.x] ? " (outside the shape: not knitted)" : ""}
+          </p>
+        ) : null}
+        {shape ? (
+          <p className="text-sm text-bark" data-testid="shape-note">
+            Grey hatched cells lie outside the {area?.area}&apos;s shape ({area?.note}): they are never knitted and cannot be painted.
           </p>
         ) : null}
 
@@ -854,8 +897,8 @@ export function ChartEditor(props: ChartEditorProps) {
           ) : null}
         </section>
 
-        <PlanPanel chart={present} defaults={props.planDefaults} inTheRound={props.inTheRound} onMarks={setMarks} />
-        {props.livePricing ? <LivePrice charts={priceCharts} pricing={props.livePricing} baselineKey={String(openedVersion)} /> : null}
+        <PlanPanel chart={present} defaults={props.planDefaults} inTheRound={props.inTheRound} onMarks={setMarks} rounds={rounds} />
+        {props.livePricing ? <LivePrice charts={priceCharts} pricing={props.livePricing} baselineKey={String(openedVersion)} sizing={props.sizing ?? null} sizingNote={props.sizingNote ?? null} onRounds={setRounds} /> : null}
       </div>
 
       <aside className="space-y-4">

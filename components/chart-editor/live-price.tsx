@@ -1,17 +1,23 @@
 "use client";
-// The live price beside the colour plan: every chart of the design read as a piece, priced in the
-// browser by the same pure core the quote uses (labour at the studio's rate plus the design fee),
-// with what changed since the version the maker opened (or since "compare from here").
+// The live price beside the colour plan: the whole garment (every stitch of every piece, built in
+// the browser from the commission's sizing) with the design's charts on it, priced by the same pure
+// core the quote uses (labour at the studio's rate plus the design fee), with what changed since the
+// version the maker opened (or since "compare from here").
 import { useEffect, useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
+import type { RoundReading } from "@/lib/core/garment";
+import { readDesignOnGarment, type ChartProblem } from "@/lib/core/design-garment";
+import type { PieceFeatures } from "@/lib/core/labour/piece-features";
 import type { QuotePolicy } from "@/lib/core/pricing/compose-quote";
 import { formatMoney } from "@/lib/core/pricing/format-money";
-import { livePrice, piecesFromCharts, type ChartPiece } from "@/lib/core/pricing/live-price";
+import { livePrice, type ChartPiece } from "@/lib/core/pricing/live-price";
+import type { SizingResult } from "@/lib/core/sizing";
 
 export interface LivePricing {
   policy: QuotePolicy;
   designFeeMinor: number;
   floatLimitStitches: number;
+  floatLimitCm?: number;
   carryLimitCm?: number;
 }
 
@@ -20,12 +26,40 @@ export interface LivePriceProps {
   pricing: LivePricing;
   /** changes when another version is opened: that version becomes the baseline */
   baselineKey: string;
+  /** the commission's sizing: the garment priced */
+  sizing: SizingResult | null;
+  sizingNote?: string | null;
+  /** the garment's round-by-round reading after each settled edit (for the colour plan's table) */
+  onRounds?: (rounds: RoundReading[] | null) => void;
+}
+
+interface Read {
+  pieces: PieceFeatures[];
+  problems: ChartProblem[];
+  rounds: RoundReading[];
+  error: string | null;
+}
+
+function readGarment(sizing: SizingResult | null, charts: ChartPiece[], pricing: LivePricing): Read {
+  if (!sizing) return { pieces: [], problems: [], rounds: [], error: "The design has no garment to price (no commission sizing)." };
+  try {
+    const r = readDesignOnGarment(sizing, charts, {
+      proofRounds: 1,
+      rates: pricing.policy.rates,
+      floatLimitStitches: pricing.floatLimitStitches,
+      ...(pricing.floatLimitCm !== undefined ? { floatLimitCm: pricing.floatLimitCm } : {}),
+      ...(pricing.carryLimitCm !== undefined ? { carryLimitCm: pricing.carryLimitCm } : {}),
+    });
+    return { pieces: r.pieces, problems: r.problems, rounds: r.reading.rounds, error: null };
+  } catch (e) {
+    return { pieces: [], problems: [], rounds: [], error: e instanceof Error ? e.message : String(e) };
+  }
 }
 
 const DEBOUNCE_MS = 300;
 
-export function LivePrice({ charts, pricing, baselineKey }: LivePriceProps) {
-  const { policy, designFeeMinor, floatLimitStitches, carryLimitCm } = pricing;
+export function LivePrice({ charts, pricing, baselineKey, sizing, sizingNote, onRounds }: LivePriceProps) {
+  const { policy, designFeeMinor } = pricing;
   // A stroke stays smooth: the price follows the charts once editing pauses.
   const [settled, setSettled] = useState(charts);
   useEffect(() => {
@@ -33,22 +67,25 @@ export function LivePrice({ charts, pricing, baselineKey }: LivePriceProps) {
     return () => clearTimeout(t);
   }, [charts]);
 
-  const pieces = useMemo(() => piecesFromCharts(settled, floatLimitStitches, carryLimitCm), [settled, floatLimitStitches, carryLimitCm]);
-  const [baseline, setBaseline] = useState<{ key: string; from: "opened" | "here"; pieces: typeof pieces }>(() => ({
+  const read = useMemo(() => readGarment(sizing, settled, pricing), [sizing, settled, pricing]);
+  const pieces = read.pieces;
+  useEffect(() => onRounds?.(read.error ? null : read.rounds), [read, onRounds]);
+  const [baseline, setBaseline] = useState<{ key: string; from: "opened" | "here"; pieces: PieceFeatures[] }>(() => ({
     key: baselineKey,
     from: "opened",
-    pieces: piecesFromCharts(charts, floatLimitStitches, carryLimitCm),
+    pieces: readGarment(sizing, charts, pricing).pieces,
   }));
   // Another version opened: price changes from there (set during render, React's reset pattern).
-  if (baseline.key !== baselineKey) setBaseline({ key: baselineKey, from: "opened", pieces: piecesFromCharts(charts, floatLimitStitches, carryLimitCm) });
+  if (baseline.key !== baselineKey) setBaseline({ key: baselineKey, from: "opened", pieces: readGarment(sizing, charts, pricing).pieces });
 
   const result = useMemo(() => {
+    if (read.error) return { ok: false as const, message: read.error };
     try {
       return { ok: true as const, value: livePrice(baseline.pieces, pieces, policy, designFeeMinor) };
     } catch (e) {
       return { ok: false as const, message: e instanceof Error ? e.message : String(e) };
     }
-  }, [baseline.pieces, pieces, policy, designFeeMinor]);
+  }, [read.error, baseline.pieces, pieces, policy, designFeeMinor]);
 
   const money = (minor: number, signed = false) => formatMoney(minor, policy.currency, "en-GB", signed ? { signDisplay: "exceptZero" } : {});
   let sentence = "";
@@ -72,11 +109,25 @@ export function LivePrice({ charts, pricing, baselineKey }: LivePriceProps) {
       <p aria-live="polite" aria-atomic="true" className="font-semibold" data-testid="live-price-change">
         {sentence}
       </p>
+      {sizingNote ? (
+        <p className="text-sm font-semibold" data-testid="live-price-sizing-note">
+          {sizingNote}
+        </p>
+      ) : null}
+      {read.problems.length ? (
+        <ul role="status" className="list-disc pl-5 text-sm font-semibold text-madder-dark" data-testid="live-price-problems">
+          {read.problems.map((p) => (
+            <li key={p.index}>
+              Not counted: {p.label} ({p.message})
+            </li>
+          ))}
+        </ul>
+      ) : null}
       {result.ok ? (
         <div className="overflow-x-auto">
           <table className="w-full text-sm">
             <caption className="mb-1 text-left">
-              Labour from the charts at {money(policy.hourlyRateMinor)} an hour ({policy.labourPolicy === "p80" ? "the cautious P80 estimate" : "the typical P50 estimate"}), with the design fee. Yarn,
+              Labour for every stitch of the garment ({pieces.map((p) => p.label).join(", ")}) at {money(policy.hourlyRateMinor)} an hour ({policy.labourPolicy === "p80" ? "the cautious P80 estimate" : "the typical P50 estimate"}), with the design fee. Yarn,
               extras and shipping are added in the quote.
             </caption>
             <thead>

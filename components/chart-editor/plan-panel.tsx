@@ -8,12 +8,16 @@ import type { ColourPlan } from "@/lib/core/colourwork/colour-plan";
 import type { DarningPlan } from "@/lib/core/colourwork/darning-plan";
 import type { CellMark } from "./chart-canvas";
 import { DarningMap } from "./darning-map";
+import { RoundsTable } from "./rounds-table";
+import type { RoundReading } from "@/lib/core/garment";
 
 export interface PlanPanelProps {
   chart: Chart;
   defaults: { carryLimitCm: number; floatLimitStitches: number; floatLimitCm: number };
   inTheRound: boolean;
   onMarks?: (marks: CellMark[]) => void;
+  /** the whole garment read round by round (from the live price), when the design has a commission */
+  rounds?: RoundReading[] | null;
 }
 
 interface PlanResponse {
@@ -37,7 +41,7 @@ export function floatCells(plan: ColourPlan, width: number): CellMark[] {
   return out;
 }
 
-export function PlanPanel({ chart, defaults, inTheRound: roundDefault, onMarks }: PlanPanelProps) {
+export function PlanPanel({ chart, defaults, inTheRound: roundDefault, onMarks, rounds }: PlanPanelProps) {
   const [doc, setDoc] = useState<ChartV1>(() => serializeChart(chart));
   const [knit, setKnit] = useState<string>("");
   const [inTheRound, setInTheRound] = useState(roundDefault);
@@ -87,6 +91,7 @@ export function PlanPanel({ chart, defaults, inTheRound: roundDefault, onMarks }
       <h2 id="plan-heading" className="text-lg">
         Colour plan
       </h2>
+      {rounds?.length ? <RoundsTable rounds={rounds} name={name} /> : null}
       <div className="flex flex-wrap items-end gap-3">
         <label className="flex flex-col text-sm">
           Knitted pair

@@ -26,7 +26,7 @@ export function DesignYarnPanel(props: { data: DesignYarnPanelData; onUse: (mate
         Yarn from the design ({data.designTitle}, version {data.designVersion})
       </h3>
       <p className="text-sm text-bark">
-        {data.plainNote} Includes a {data.marginPercent} % margin. Skeins are rounded up per yarn over all the charts.
+        {data.plainNote} Includes a {data.marginPercent} % margin. Skeins are rounded up per yarn over the whole garment.
       </p>
       <div className="overflow-x-auto">
         <table className="mt-2 w-full text-left text-sm">

@@ -14,6 +14,7 @@ import { diffQuotes } from "@/lib/core/pricing/diff-quotes";
 import { explainChange } from "@/lib/core/pricing/explain-change";
 import { formatMoney, minorToDecimalString } from "@/lib/core/pricing/format-money";
 import { majorToMinor } from "@/lib/schemas/money";
+import { formatMinutes } from "@/lib/core/production/time-entries";
 
 interface YarnOption {
   id: string;
@@ -34,6 +35,8 @@ export function QuoteBuilder(props: {
   initialValidUntil: string;
   initialMessage: string;
   featuresFromDesign: boolean;
+  /** where the garment's pieces come from (lib/server/garment.ts): sizing source, stand-in note, charts left off */
+  garment?: { sizedFrom: string; note: string | null; problems: string | null };
   /** yarn per studio yarn from the design the quote prices (lib/server/design-yarn.ts) */
   yarnEstimate?: DesignYarnPanelData | null;
   /** the schedule's earliest promise date for this garment (lib/server/schedule.ts) */
@@ -164,8 +167,21 @@ export function QuoteBuilder(props: {
         <fieldset className="flex flex-col gap-4">
           <legend className="mb-2 text-xl">Pieces and their work</legend>
           <p className="text-sm text-bark">
-            {props.featuresFromDesign ? "Counted from the commission's design; adjust where the chart does not tell the whole story." : "No design yet: type the counts, or start from our typical figures."}
+            {props.featuresFromDesign
+              ? "Every stitch of every piece, counted from the garment with the commission's design on it; adjust where the chart does not tell the whole story."
+              : "No design yet: every stitch of every piece of the plain garment; the charts add colourwork once the design has them."}
+            {props.garment ? ` Sized from the ${props.garment.sizedFrom}.` : ""}
           </p>
+          {props.garment?.note ? (
+            <p className="text-sm font-semibold" data-testid="garment-note">
+              {props.garment.note}
+            </p>
+          ) : null}
+          {props.garment?.problems ? (
+            <p role="status" className="text-sm font-semibold text-madder-dark" data-testid="garment-problems">
+              {props.garment.problems}
+            </p>
+          ) : null}
           {pieces.map((p, i) => (
             <fieldset key={i} className="rounded-md border border-bark/30 p-3">
               <legend className="px-1 font-semibold">{p.label || `Piece ${i + 1}`}</legend>
@@ -383,6 +399,11 @@ export function QuoteBuilder(props: {
               </table>
               <p className="mt-3 text-sm text-bark">
                 Labour {preview.estimate.totals.p50Hours} h typical, {preview.estimate.totals.p80Hours} h cautious; priced at the {policy.labourPolicy === "p80" ? "cautious (P80)" : "typical (P50)"} figure.
+              </p>
+              {/* Per piece, rounded as production rounds each piece's estimate, so the board shows the same figures. */}
+              <p className="mt-1 text-sm tabular-nums" data-testid="quote-knitting">
+                Knitting (typical): {preview.estimate.pieces.map((p, i) => `${p.label || `piece ${i + 1}`} ${formatMinutes(p.p50Minutes.knitting)}`).join(", ")} (total{" "}
+                {formatMinutes(preview.estimate.pieces.reduce((s, p) => s + p.p50Minutes.knitting, 0))})
               </p>
             </>
           ) : null}

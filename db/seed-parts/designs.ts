@@ -1,5 +1,6 @@
 // Demo designs built with the chart core: a mitten back-of-hand pair with "PO" and a snowflake for
 // priya-mittens, and a hat band with "EB" between peerie borders for elias-hat.
+import { sizeGarment } from "../../lib/core/sizing";
 import { createHash } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { createChart, getMotif, placeLettering, placeMotif, serializeChart, tileMotif, type Chart } from "../../lib/core/chart";
@@ -63,10 +64,13 @@ export function buildHatBand(): DesignChartEntry[] {
     { key: "B", name: "Gull white", hex: "#F2EEE4" },
     { key: "C", name: "Rowanberry", hex: "#A8322D" },
   ];
-  let c = createChart(164, 29, GAUGE, palette);
-  c = tileMotif(c, getMotif("diamond-peerie"), { x: 0, y: 2, width: 164, height: 5 }, { pattern: 1 });
-  c = tileMotif(c, getMotif("diamond-peerie"), { x: 0, y: 22, width: 164, height: 5 }, { pattern: 1 });
-  const layers: Layer[] = [{ text: "EB", font: "5x7", box: { x: 70, y: 10, width: 24, height: 9 }, key: "C", backgroundKey: "A" }];
+  // At the band's size for the commission's brief (a 57 cm head at the chart's gauge), so the garment places it.
+  const band = sizeGarment({ garment: "hat", measurements: { headCircumferenceCm: 57 }, gauge: GAUGE }).charts.find((a) => a.area === "band")!;
+  const { width: W, height: H } = band;
+  let c = createChart(W, H, GAUGE, palette);
+  c = tileMotif(c, getMotif("diamond-peerie"), { x: 0, y: 2, width: W, height: 5 }, { pattern: 1 });
+  c = tileMotif(c, getMotif("diamond-peerie"), { x: 0, y: H - 7, width: W, height: 5 }, { pattern: 1 });
+  const layers: Layer[] = [{ text: "EB", font: "5x7", box: { x: Math.floor((W - 24) / 2), y: Math.floor((H - 9) / 2), width: 24, height: 9 }, key: "C", backgroundKey: "A" }];
   return [{ area: "band", label: "Hat band", chart: serializeChart(withLayers(c, layers)), lettering: layers }];
 }
 

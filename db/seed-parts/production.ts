@@ -1,10 +1,17 @@
 import { eq } from "drizzle-orm";
+import { readDesignOnGarment } from "../../lib/core/design-garment";
 import { estimatePiece, getPieceLayout, type PieceEstimateMap } from "../../lib/core/production";
+import { sizeGarment } from "../../lib/core/sizing";
 import type { PieceFeatures } from "../../lib/core/labour/piece-features";
 import { labourHistory, memberAvailability, pieceEvents, pieces, studioMembers, timeEntries, yarnReservations } from "../schema";
 import type { SeedPart } from "./context";
 
 const DAY = 86_400_000;
+
+/** A plain garment's pieces at a standard size (the demo's pieces are counted by the garment, as the app counts them). */
+function garmentPieces(garment: "mitten" | "hat", size: string): PieceFeatures[] {
+  return readDesignOnGarment(sizeGarment({ garment, size, gauge: { stitchesPer10cm: 32, rowsPer10cm: 36 } }), []).pieces;
+}
 
 /** An entry that started at 09:30 UTC `daysAgo` days before now. */
 function at(daysAgo: number, hour = 9, minute = 30): Date {
@@ -39,7 +46,7 @@ export const seedProduction: SeedPart = async (tx, ctx) => {
 
   // The watch cap in production: knitting under way.
   const hatCommission = ctx.commissionIds["elias-hat"];
-  const hatLayout = getPieceLayout("hat", "one");
+  const hatLayout = getPieceLayout("hat", garmentPieces("hat", "woman"), "pieces");
   const hatPlan = estimatePiece(hatLayout.pieces[0].features);
   const [hat] = await tx
     .insert(pieces)
@@ -80,7 +87,7 @@ export const seedProduction: SeedPart = async (tx, ctx) => {
 
   // Last winter's reindeer mittens: closed, so their minutes are history for calibration.
   const reindeer = ctx.commissionIds["elias-reindeer"];
-  const pair = getPieceLayout("mittens", "pair");
+  const pair = getPieceLayout("mittens", garmentPieces("mitten", "woman"), "pieces");
   const reindeerLogged: Record<string, number>[] = [
     { knitting: 455, embroidery: 48, blocking: 15, finishing: 20 },
     { knitting: 430, embroidery: 44, blocking: 14, finishing: 22 },

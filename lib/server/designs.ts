@@ -11,6 +11,7 @@ import { DesignFormatError, parseDesign, serializeDesign } from "@/lib/core/char
 import type { CreateDesignInput, DesignChartEntryInput, SaveDesignVersionInput } from "@/lib/schemas/designs";
 import { assertCan, type Actor } from "./authz";
 import { AppError, notFound, type FieldErrors } from "./errors";
+import { assertChartsInShape } from "./garment";
 
 /** Stable JSON: object keys sorted at every level, so equal content hashes equally. */
 export function canonicalJson(value: unknown): string {
@@ -181,6 +182,7 @@ export async function createDesign(actor: Actor, input: CreateDesignInput) {
   if (!c) throw notFound("That commission");
   assertCan(actor, "commission.work", c.studioId);
   const charts = validateDesignCharts(input.charts);
+  await assertChartsInShape(c.id, charts);
   return db.transaction(async (tx) => {
     const [design] = await tx
       .insert(designs)
@@ -212,6 +214,7 @@ export async function saveDesignVersion(actor: Actor, designId: string, input: S
   const d = await getDesignFor(actor, designId);
   assertCan(actor, "commission.work", d.studioId);
   const charts = validateDesignCharts(input.charts);
+  await assertChartsInShape(d.commissionId, charts);
   const hash = contentHashOf(charts);
   return db.transaction(async (tx) => {
     // One save at a time per design: the row lock orders racing tabs.

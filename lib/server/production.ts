@@ -21,6 +21,7 @@ import {
   estimatePiece,
   findOverlap,
   getPieceLayout,
+  pieceLayouts,
   timerFlag,
   timerMinutes,
   timerSeconds,
@@ -33,7 +34,9 @@ import { WORK_STAGES, type ManualEntryInput, type WorkStageName } from "@/lib/sc
 import { manualEntrySchema, editEntrySchema, pieceFeaturesEditSchema } from "@/lib/schemas/production";
 import type { z } from "zod";
 import { assertCan, memberRole, type Actor } from "./authz";
-import { AppError, conflict, forbidden, notFound } from "./errors";
+import { AppError, conflict, forbidden, notFound, nullIfNotFound } from "./errors";
+import { getCommissionGarment } from "./garment";
+import { getCommissionFor } from "./queries/commissions";
 import { loadStudioSettings } from "./settings";
 import { moveCommission, SYSTEM, type Mover } from "./workflow";
 
@@ -56,8 +59,27 @@ async function lockCommission(tx: Tx, actor: Actor, commissionId: string) {
   return c;
 }
 
-/** Creates the pieces of a commission (once). Owner or assistant; the commission is about to be, or is, in production. */
-export async function createPieces(actor: Actor, commissionId: string, layoutId: string, opts: { tx?: Tx } = {}) {
+/**
+ * The garment's pieces for a commission about to be set up, loaded before any transaction (the
+ * garment reads the sizing, the design and the settings through the pool).
+ */
+async function garmentPiecesFor(actor: Actor, commissionId: string) {
+  const c = await getCommissionFor(actor, commissionId).catch(nullIfNotFound);
+  if (!c || memberRole(actor, c.studioId) === null) throw notFound("That commission");
+  assertCan(actor, "commission.work", c.studioId);
+  const settings = await loadStudioSettings(c.studioId);
+  const garment = await getCommissionGarment(c, { settings });
+  return { pieces: garment.pieces, settings };
+}
+
+/** Creates the pieces of a commission (once): the garment's pieces. Owner or assistant; the commission is about to be, or is, in production. */
+export async function createPieces(
+  actor: Actor,
+  commissionId: string,
+  layoutId: string,
+  opts: { tx?: Tx; prepared?: Awaited<ReturnType<typeof garmentPiecesFor>> } = {},
+) {
+  const prepared = opts.prepared ?? (await garmentPiecesFor(actor, commissionId));
   const run = async (tx: Tx) => {
     const c = await lockCommission(tx, actor, commissionId);
     assertCan(actor, "commission.work", c.studioId);
@@ -68,13 +90,12 @@ export async function createPieces(actor: Actor, commissionId: string, layoutId:
     if (existing.length) throw conflict("This commission already has its pieces.");
     let layout;
     try {
-      layout = getPieceLayout(c.garment as Garment, layoutId);
+      layout = getPieceLayout(c.garment as Garment, prepared.pieces, layoutId);
     } catch (err) {
       throw new AppError(422, "invalid_input", (err as Error).message, { layout: [(err as Error).message] });
     }
-    const settings = await loadStudioSettings(c.studioId, tx);
     const rows = layout.pieces.map((p, i) => {
-      const { estimate, dryingHours } = estimatePiece(p.features, settings.rates);
+      const { estimate, dryingHours } = estimatePiece(p.features, prepared.settings.rates);
       return {
         studioId: c.studioId,
         commissionId: c.id,
@@ -96,8 +117,9 @@ export async function createPieces(actor: Actor, commissionId: string, layoutId:
 
 /** Starts production and creates the pieces in one transaction. */
 export async function startProduction(actor: Actor, commissionId: string, layoutId: string) {
+  const prepared = await garmentPiecesFor(actor, commissionId);
   return db.transaction(async (tx) => {
-    const created = await createPieces(actor, commissionId, layoutId, { tx });
+    const created = await createPieces(actor, commissionId, layoutId, { tx, prepared });
     const outcome = await moveCommission(actor, commissionId, "start_production", { tx, detail: { pieces: created.length, layout: layoutId } });
     return { outcome, pieces: created };
   });
@@ -276,8 +298,18 @@ export async function getBoard(actor: Actor, studioId: string) {
     };
   });
   // Commissions that can start production, and ones in production still without pieces.
-  const waiting = await db
-    .select({ id: commissions.id, number: commissions.number, title: commissions.title, garment: commissions.garment, state: commissions.state, neededBy: commissions.neededBy })
+  const waitingRows = await db
+    .select({
+      id: commissions.id,
+      studioId: commissions.studioId,
+      number: commissions.number,
+      title: commissions.title,
+      garment: commissions.garment,
+      brief: commissions.brief,
+      sizing: commissions.sizing,
+      state: commissions.state,
+      neededBy: commissions.neededBy,
+    })
     .from(commissions)
     .where(
       and(
@@ -287,6 +319,21 @@ export async function getBoard(actor: Actor, studioId: string) {
       ),
     )
     .orderBy(sql`${commissions.neededBy} asc nulls last`);
+  // Each offers the ways its garment's own pieces can be tracked, with the estimate they will get.
+  const settings = waitingRows.length ? await loadStudioSettings(studioId) : null;
+  const waiting = [];
+  for (const { brief, sizing, ...w } of waitingRows) {
+    const garment = await getCommissionGarment({ ...w, brief, sizing }, { settings: settings! }).catch((e: Error) => e);
+    const layouts =
+      garment instanceof Error
+        ? []
+        : pieceLayouts(w.garment as Garment, garment.pieces).map((l) => ({
+            id: l.id,
+            label: l.label,
+            pieces: l.pieces.map((p) => ({ name: p.name, ...estimatePiece(p.features, settings!.rates) })),
+          }));
+    waiting.push({ ...w, layouts, note: garment instanceof Error ? garment.message : garment.note });
+  }
   // Commissions whose pieces are all done and can be marked ready.
   const byCommission = new Map<string, BoardPiece[]>();
   for (const card of cards) byCommission.set(card.commissionId, [...(byCommission.get(card.commissionId) ?? []), card]);

@@ -5,9 +5,6 @@ import { and, asc, desc, eq, inArray, ne } from "drizzle-orm";
 import { createElement } from "react";
 import { db, type Executor, type Tx } from "@/db";
 import { commissions, quoteVersions, studioClients, studios, yarnLots, yarnReservations, yarns, type QuoteVersion } from "@/db/schema";
-import { parseChart } from "@/lib/core/chart/format";
-import { featuresFromChart } from "@/lib/core/labour/chart-features";
-import type { PieceFeatures } from "@/lib/core/labour/piece-features";
 import { composeQuote, type QuoteDraft, type QuotePolicy } from "@/lib/core/pricing/compose-quote";
 import { formatMoney } from "@/lib/core/pricing/format-money";
 import type { Quote } from "@/lib/core/pricing/build-quote";
@@ -24,8 +21,9 @@ import { renderPdf } from "./pdf";
 import { getCommissionFor, getCommissionMailParties } from "./queries/commissions";
 import { loadStudioSettings } from "./settings";
 import { moveCommission } from "./workflow";
-import { getEarliestPromiseDate, newPiecesForGarment } from "./schedule";
+import { getEarliestPromiseDate } from "./schedule";
 import { getCommissionYarnEstimate, getPricedDesignVersion } from "./design-yarn";
+import { getCommissionGarment, problemsText } from "./garment";
 
 export const todayIso = (d = new Date()) => d.toISOString().slice(0, 10);
 const addDays = (iso: string, days: number) => todayIso(new Date(Date.parse(`${iso}T00:00:00Z`) + days * 86_400_000));
@@ -79,36 +77,6 @@ export function taxNote(q: Quote): string {
 
 // --- the builder ------------------------------------------------------------------------------
 
-/** Features for each charted piece of the commission's newest design version, if it has one. */
-async function designFeatures(
-  commissionId: string,
-  floatLimit: number,
-  carryLimitCm: number,
-  preloaded?: Awaited<ReturnType<typeof getPricedDesignVersion>>,
-): Promise<{ pieces: PieceFeatures[]; designVersionId: string | null }> {
-  const priced = preloaded === undefined ? await getPricedDesignVersion(commissionId) : preloaded;
-  if (!priced) return { pieces: [], designVersionId: null };
-  const v = priced.version;
-  const pieces: PieceFeatures[] = [];
-  for (const entry of v.charts) {
-    try {
-      pieces.push({ ...featuresFromChart(parseChart(entry.chart), entry.label, { floatLimitStitches: floatLimit, carryLimitCm }), newDesign: true, proofRounds: 1, blocked: true });
-    } catch {
-      // A chart that does not parse is left for the maker to type in.
-    }
-  }
-  return { pieces, designVersionId: v.id };
-}
-
-const DEFAULT_PIECES: Record<string, PieceFeatures[]> = {
-  mittens: [
-    { label: "Left mitten", newDesign: true, proofRounds: 1, plainStitches: 1800, strandedStitches: 2600, floatCatches: 40, shapingRounds: 14, thumbs: 1, duplicateStitches: 60, ends: 6, carryCm: 10 },
-    { label: "Right mitten", newDesign: false, proofRounds: 0, plainStitches: 1800, strandedStitches: 2600, floatCatches: 40, shapingRounds: 14, thumbs: 1, duplicateStitches: 60, ends: 6, carryCm: 10 },
-  ],
-  hat: [{ label: "Hat", newDesign: true, proofRounds: 1, plainStitches: 7000, strandedStitches: 4500, floatCatches: 60, shapingRounds: 12, duplicateStitches: 80, ends: 6, carryCm: 12 }],
-  pullover: [{ label: "Pullover", newDesign: true, proofRounds: 2, plainStitches: 60000, strandedStitches: 14000, floatCatches: 200, shapingRounds: 40, duplicateStitches: 150, ends: 14, carryCm: 30 }],
-};
-
 export async function getQuoteBuilderData(actor: Actor, commissionId: string) {
   const c = await getCommissionFor(actor, commissionId);
   assertCan(actor, "commission.price", c.studioId);
@@ -120,20 +88,21 @@ export async function getQuoteBuilderData(actor: Actor, commissionId: string) {
     .orderBy(asc(yarns.colourName));
   const versions = await db.select().from(quoteVersions).where(eq(quoteVersions.commissionId, c.id)).orderBy(desc(quoteVersions.number));
   const priced = await getPricedDesignVersion(c.id);
-  const fromDesign = await designFeatures(c.id, settings.floatLimitStitches, settings.carryLimitCm, priced);
+  // Every stitch of every piece, once: the garment from the sizing with the priced design on it.
+  const garment = await getCommissionGarment(c, { settings, priced });
   // A suggestion only: if it cannot be worked out the builder still opens, with the yarn lines to fill in.
-  const yarnEstimate = await getCommissionYarnEstimate(actor, c, priced).catch((err: unknown) => {
+  const yarnEstimate = await getCommissionYarnEstimate(actor, c, priced, garment).catch((err: unknown) => {
     console.error("yarn estimate:", (err as Error).message);
     return null;
   });
   const known = new Set(yarnRows.map((y) => y.id));
   const suggested = (yarnEstimate?.lines ?? []).filter((l) => l.yarnId && known.has(l.yarnId) && l.skeins);
   // What the studio's schedule can promise for this garment after everything already booked.
-  const promise = await getEarliestPromiseDate(c.studioId, newPiecesForGarment(c.garment)).catch(() => null);
+  const promise = await getEarliestPromiseDate(c.studioId, garment.pieces.map((features) => ({ features, label: features.label }))).catch(() => null);
   const latest = versions[0];
   const previous: QuoteDraft | null = latest ? storedInputOf(latest).draft : null;
   const initial: QuoteDraft = previous ?? {
-    pieces: fromDesign.pieces.length ? fromDesign.pieces : (DEFAULT_PIECES[c.garment] ?? DEFAULT_PIECES.hat),
+    pieces: garment.pieces,
     // Skeins from the design's yarn estimate where its colours are studio yarns; else two to choose from.
     materials: suggested.length
       ? suggested.map((l) => {
@@ -156,7 +125,8 @@ export async function getQuoteBuilderData(actor: Actor, commissionId: string) {
     yarns: yarnRows,
     versions,
     initial,
-    featuresFromDesign: fromDesign.pieces.length > 0,
+    featuresFromDesign: garment.placedCharts.length > 0,
+    garment: { sizedFrom: garment.sizedFrom, note: garment.note, problems: problemsText(garment.problems) },
     yarnEstimate,
     scheduleEarliest: promise?.date ?? null,
     sentQuote: versions.find((v) => v.status === "sent" || v.status === "accepted") ?? null,
@@ -204,7 +174,7 @@ export async function saveQuoteDraft(actor: Actor, commissionId: string, body: Q
   const draft = await draftFromBody(c.studioId, body);
   const { quote, estimate } = compose(draft, policy);
   if (body.validUntil && body.validUntil < todayIso()) throw new AppError(422, "invalid_input", "The validity date is in the past.", { validUntil: ["Choose today or a later date."] });
-  const design = await designFeatures(c.id, settings.floatLimitStitches, settings.carryLimitCm);
+  const design = { designVersionId: (await getPricedDesignVersion(c.id))?.version.id ?? null };
   const input: StoredQuoteInput = { draft, policy, validUntil: body.validUntil ?? null, estimate: { p50Minutes: estimate.totals.p50Minutes, p80Minutes: estimate.totals.p80Minutes } };
   const values = {
     currency: c.currency,

@@ -5,7 +5,7 @@ import { and, asc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { commissions, memberAvailability, pieces, studioMembers, studios, timeEntries, user } from "@/db/schema";
 import type { PieceFeatures } from "@/lib/core/labour";
-import { estimatePiece, getPieceLayout, localDate, remainingMinutes, type Garment, type PieceEstimateMap } from "@/lib/core/production";
+import { estimatePiece, localDate, remainingMinutes, type Garment, type PieceEstimateMap } from "@/lib/core/production";
 import {
   addDays,
   earliestPromiseDate,
@@ -24,6 +24,7 @@ import type { z } from "zod";
 import type { availabilitySchema } from "@/lib/schemas/production";
 import { assertCan, type Actor } from "./authz";
 import { AppError, notFound } from "./errors";
+import { getCommissionGarment, standardGarmentPieces } from "./garment";
 import { loadStudioSettings } from "./settings";
 
 /** Commissions whose work is still ahead: booked up to in production. */
@@ -100,7 +101,7 @@ export interface QueueLabel {
   planned: boolean;
 }
 
-/** Every booked piece's remaining stage minutes (P80 − logged, not below 0); commissions without pieces yet use the default layout. */
+/** Every booked piece's remaining stage minutes (P80 − logged, not below 0); commissions without pieces yet use their garment's pieces. */
 async function loadQueue(studioId: string, members: MemberAvailabilityView[], today: string, now: Date) {
   const [studio] = await db.select({ leadTimeWeeks: studios.leadTimeWeeks }).from(studios).where(eq(studios.id, studioId));
   const settings = await loadStudioSettings(studioId);
@@ -145,12 +146,13 @@ async function loadQueue(studioId: string, members: MemberAvailabilityView[], to
         labels.push({ ...base, pieceId: p.id, pieceName: p.name, planned: false });
       }
     } else {
-      // Not in production yet: the garment's usual pieces at the studio's rates.
-      getPieceLayout(c.garment as Garment).pieces.forEach((p, i) => {
-        const { estimate, dryingHours } = estimatePiece(p.features, settings.rates);
+      // Not in production yet: the garment's own pieces (its sizing, its design) at the studio's rates.
+      const garment = await getCommissionGarment(c, { settings });
+      garment.pieces.forEach((f, i) => {
+        const { estimate, dryingHours } = estimatePiece(f, settings.rates);
         const id = `${c.id}:${i}`;
         queue.push({ id, commissionId: c.id, due, stages: stagesFor(estimate, "queued", {}), dryingHours });
-        labels.push({ ...base, pieceId: id, pieceName: p.name, planned: true });
+        labels.push({ ...base, pieceId: id, pieceName: f.label ?? `Piece ${i + 1}`, planned: true });
       });
     }
   }
@@ -191,9 +193,9 @@ export interface PromisePieceInput {
   label?: string;
 }
 
-/** The usual pieces of a garment, for a promise before any design exists. */
+/** The pieces of a plain garment at a standard size, for a promise before any commission exists. */
 export function newPiecesForGarment(garment: Garment): PromisePieceInput[] {
-  return getPieceLayout(garment).pieces.map((p) => ({ features: p.features, label: p.name }));
+  return standardGarmentPieces(garment).map((features) => ({ features, label: features.label }));
 }
 
 /**

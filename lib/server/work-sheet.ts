@@ -1,23 +1,72 @@
 import "server-only";
-// Builds the work sheet PDF of a design's head version: charts, colour key, knitted pair, catches
-// and darning route maps, planned with the studio's limits and rates.
+// Builds the work sheet PDF of a design's head version: for a commission's design first the whole
+// garment (every piece's stitches, round by round what is knitted and darned, from the garment
+// model), then per chart its colour key, knitted pair, catches and darning route maps, planned with
+// the studio's limits and rates.
 import { parseChart, serializeChart } from "@/lib/core/chart";
 import { getStitchCounts } from "@/lib/core/chart/counts";
 import { and, eq } from "drizzle-orm";
 import { db } from "@/db";
-import { commissions } from "@/db/schema";
-import { WorkSheetDocument, type WorkSheetChart, type WorkSheetRecipe } from "@/templates/pdf/work-sheet";
+import { commissions, type DesignChartEntry } from "@/db/schema";
+import { readDesignOnGarment, roundRuns } from "@/lib/core/design-garment";
+import type { StudioSettings } from "@/lib/schemas/settings";
+import { WorkSheetDocument, type WorkSheetChart, type WorkSheetGarment, type WorkSheetRecipe } from "@/templates/pdf/work-sheet";
 import type { Actor } from "./authz";
 import { renderChartPng, svgToPng } from "./chart-png";
 import { optionsFromSettings, planChart, type PlanOptionsInput } from "./colour-plan";
 import { renderDarningMapSvg } from "./darning-map-svg";
 import { getDesignWithHead } from "./designs";
+import { chartsOnGarment, commissionSizing, featureOptionsFrom, problemsText } from "./garment";
 import { notFound } from "./errors";
 import { renderPdf } from "./pdf";
 import { loadStudioSettings } from "./settings";
 import { sizedCommission } from "./sizing";
 
 const dataUrl = (png: Buffer) => `data:image/png;base64,${png.toString("base64")}`;
+
+/** The whole garment with the head version's charts on it, for the sheet's first pages (null without a commission). */
+export async function workSheetGarment(commissionId: string | null, studioId: string, entries: DesignChartEntry[], settings: StudioSettings): Promise<WorkSheetGarment | null> {
+  if (!commissionId) return null;
+  const [c] = await db
+    .select({ garment: commissions.garment, brief: commissions.brief, sizing: commissions.sizing })
+    .from(commissions)
+    .where(and(eq(commissions.id, commissionId), eq(commissions.studioId, studioId)));
+  if (!c) return null;
+  const read = chartsOnGarment(entries);
+  try {
+    const { sizing, sizedFrom, note } = commissionSizing(c, read.charts[0]?.chart.gauge);
+    const g = readDesignOnGarment(sizing, read.charts, featureOptionsFrom(settings));
+    const problems = problemsText([...read.problems, ...g.problems.map((p) => ({ ...p, index: read.indices[p.index] ?? p.index }))]);
+    const palette = g.placed.palette;
+    const name = (key: string) => palette.find((p) => p.key === key)?.name ?? key;
+    const first = g.reading.pieces[0]?.name;
+    const r1 = (v: number) => Math.round(v * 10) / 10;
+    return {
+      summary: `sized from the ${sizedFrom}${sizing.size ? `, size ${sizing.size}` : ""}, ${r1(sizing.gauge.stitchesPer10cm)} sts and ${r1(sizing.gauge.rowsPer10cm)} rnds per 10 cm`,
+      note,
+      problems,
+      pieces: g.reading.pieces.map((p) => ({
+        name: p.name,
+        stitches: p.stitches,
+        plain: p.features.plainStitches,
+        stranded: p.features.strandedStitches,
+        darned: p.features.darnedStitches,
+        catches: p.features.floatCatches,
+        ends: p.features.ends,
+      })),
+      roundsOf: first ?? "",
+      rounds: roundRuns(g.reading.rounds.filter((r) => r.piece === first)).map((r) => ({
+        part: r.part,
+        rounds: r.from === r.to ? String(r.from) : `${r.from}–${r.to}`,
+        knit: r.knit.map(name).join(" and "),
+        darned: r.darned,
+        why: r.why ?? (r.knit.length > 1 ? "two colours: stranded" : "one colour: plain"),
+      })),
+    };
+  } catch (e) {
+    return { summary: "", note: `The garment could not be read: ${(e as Error).message}`, problems: null, pieces: [], roundsOf: "", rounds: [] };
+  }
+}
 
 /** The recipe of the design's commission's saved sizing, or null. */
 async function recipeFor(commissionId: string | null, studioId: string): Promise<WorkSheetRecipe | null> {
@@ -108,10 +157,12 @@ export async function buildWorkSheet(actor: Actor, designId: string): Promise<{ 
     });
   }
   const recipe = await recipeFor(design.commissionId, design.studioId);
+  const garment = await workSheetGarment(design.commissionId, design.studioId, head.charts, settings);
   const pdf = await renderPdf(
     WorkSheetDocument({
       studioName,
       recipe,
+      garment,
       title: design.title,
       commission: design.commissionNumber ? `commission ${design.commissionNumber}: ${design.commissionTitle}` : "no commission",
       version: head.number,

@@ -5,7 +5,9 @@
 import { parseChart } from "@/lib/core/chart/format";
 import { buildGarment, garmentFeatures, placeCharts } from "@/lib/core/garment";
 import { estimateLabour } from "@/lib/core/labour/estimate-labour";
-import { piecesFromCharts } from "@/lib/core/pricing/live-price";
+import { featuresFromChart } from "@/lib/core/labour/chart-features";
+import type { PieceFeatures } from "@/lib/core/labour/piece-features";
+import type { Chart } from "@/lib/core/chart/model";
 import { sizeGarment } from "@/lib/core/sizing/size-garment";
 import { area, chartV1, only } from "@/tests/unit/garment/helpers";
 
@@ -33,6 +35,11 @@ const cases = [
 ];
 
 const hours = (m: number) => (m / 60).toFixed(2);
+
+/** How the live price and the quote draft read a design before the garment (main's piecesFromCharts): one new, proofed, blocked piece per chart. */
+function piecesFromCharts(charts: { label: string; chart: Chart }[]): PieceFeatures[] {
+  return charts.map((c) => ({ ...featuresFromChart(c.chart, c.label), newDesign: true, proofRounds: 1, blocked: true }));
+}
 for (const c of cases) {
   const sizing = sizeGarment(c.size);
   const charts = c.charts(sizing).map((p) => ({ area: p.area, chart: parseChart(p.chart) }));

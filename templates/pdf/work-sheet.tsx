@@ -52,8 +52,22 @@ export interface WorkSheetRecipe {
   warnings: string[];
 }
 
+/** The whole garment with the design on it (lib/server/garment.ts): every piece, and round by round what is knitted and darned. */
+export interface WorkSheetGarment {
+  /** e.g. "sized from the saved sizing, size child, 30 sts and 34 rnds per 10 cm" */
+  summary: string;
+  note: string | null;
+  problems: string | null;
+  pieces: { name: string; stitches: number; plain: number; stranded: number; darned: number; catches: number; ends: number }[];
+  /** the first piece's rounds (a pair's second piece is knitted the same way, or mirrored), runs of equal rounds merged */
+  roundsOf: string;
+  rounds: { part: string; rounds: string; knit: string; darned: number; why: string }[];
+}
+
 export interface WorkSheetProps {
   studioName: string;
+  /** every piece of the garment, when the design belongs to a commission */
+  garment?: WorkSheetGarment | null;
   /** the commission's saved sizing, when there is one: printed first */
   recipe?: WorkSheetRecipe | null;
   title: string;
@@ -116,6 +130,56 @@ export function WorkSheetDocument(p: WorkSheetProps) {
           <Text style={styles.h2}>Imperial</Text>
           {p.recipe.imperial.map((l, i) => (
             <Text key={`i${i}`} style={{ marginBottom: 2 }}>{`${i + 1}. ${l}`}</Text>
+          ))}
+        </Page>
+      ) : null}
+      {p.garment ? (
+        <Page size="A4" style={styles.page} wrap>
+          <SheetHeader p={p} />
+          <Text style={styles.h1}>{p.title}: the garment</Text>
+          <Text style={styles.small}>
+            Version {p.version} · printed {p.printedOn} · {p.garment.summary}
+          </Text>
+          {p.garment.note ? <Text style={styles.block}>{`Note: ${p.garment.note}`}</Text> : null}
+          {p.garment.problems ? <Text style={styles.block}>{p.garment.problems}</Text> : null}
+          <Text style={styles.h2}>Pieces: every stitch</Text>
+          <View style={styles.head}>
+            <Cell w={130}>Piece</Cell>
+            <Cell w={70}>Stitches</Cell>
+            <Cell w={70}>Plain</Cell>
+            <Cell w={70}>Stranded</Cell>
+            <Cell w={60}>Darned</Cell>
+            <Cell w={60}>Catches</Cell>
+            <Cell w={50}>Ends</Cell>
+          </View>
+          {p.garment.pieces.map((x) => (
+            <View key={x.name} style={styles.row} wrap={false}>
+              <Cell w={130}>{x.name}</Cell>
+              <Cell w={70}>{fmt(x.stitches)}</Cell>
+              <Cell w={70}>{fmt(x.plain)}</Cell>
+              <Cell w={70}>{fmt(x.stranded)}</Cell>
+              <Cell w={60}>{fmt(x.darned)}</Cell>
+              <Cell w={60}>{fmt(x.catches)}</Cell>
+              <Cell w={50}>{fmt(x.ends)}</Cell>
+            </View>
+          ))}
+          <Text style={styles.h2}>Round by round: {p.garment.roundsOf}</Text>
+          <Text style={styles.small}>At most two colours are knitted in a round; darned colours are knitted in the round's colours first and embroidered afterwards.</Text>
+          <View style={styles.head}>
+            <Cell w={80}>Part</Cell>
+            <Cell w={60}>Rounds</Cell>
+            <Cell w={130}>Knitted</Cell>
+            <Cell w={50}>Darned</Cell>
+            <Cell w={200}>Why</Cell>
+          </View>
+          {p.garment.rounds.map((r, i) => (
+            <View key={`r${i}`} style={styles.row} wrap={false}>
+              <Cell w={80}>{r.part}</Cell>
+              <Cell w={60}>{r.rounds}</Cell>
+              <Cell w={130}>{r.knit}</Cell>
+              <Cell w={50}>{r.darned ? fmt(r.darned) : ""}</Cell>
+              <Cell w={200}>{r.why}</Cell>
+            </View>
           ))}
         </Page>
       ) : null}

@@ -30,12 +30,14 @@ describe("yarn from the design", () => {
       await expect.poll(() => panel.count(), POLL).toBe(1);
       await expectAccessible(page);
       const table = panel.getByRole("table", { name: "Yarn per colour from the design" });
-      // Peat brown carries the band's ground and the plain brim and crown; Rowanberry is darned.
+      // Peat brown carries the band's ground and the plain brim and crown. The letters' rounds hold
+      // only Peat brown and Rowanberry, so the garment knits Rowanberry (two colours a round) instead
+      // of darning it as the single-pair plan of the chart alone did.
       const brown = table.getByRole("row", { name: /Skerry 4-ply, Peat brown/ });
       await expect.poll(() => brown.count(), POLL).toBe(1);
       expect(await brown.textContent()).toMatch(/knitted/);
-      expect(await table.getByRole("row", { name: /Rowanberry/ }).textContent()).toMatch(/darned/);
-      expect(await panel.textContent()).toMatch(/Plain parts sized from the brief's measurements/);
+      expect(await table.getByRole("row", { name: /Rowanberry/ }).textContent()).toMatch(/knitted/);
+      expect(await panel.textContent()).toMatch(/Every stitch of the hat \(.*\), sized from the brief's measurements/);
       // Remove every yarn line, then let the design fill them back in.
       while ((await page.getByRole("button", { name: /^Remove yarn/ }).count()) > 0) {
         await page.getByRole("button", { name: /^Remove yarn/ }).first().click();

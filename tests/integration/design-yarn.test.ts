@@ -1,5 +1,6 @@
-// The quote builder's yarn from the design: charts planned with the studio's limits, plain parts
-// sized from the brief, studio yarns matched by colour, free stock per dye lot.
+// The quote builder's yarn from the design, read from the garment: every stitch of both mittens
+// (sized from the brief) with the charts on their areas, studio yarns matched by colour, free stock
+// per dye lot.
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, test } from "vitest";
 import { POST as createDesignRoute } from "@/app/api/designs/route";
@@ -42,15 +43,16 @@ async function estimateFor(userId: string, commissionId = w.commissionA) {
 }
 
 describe("yarn from the design in the quote builder", () => {
-  test("both mittens' charts and the plain parts of a woman's pair, matched to the studio's yarns", async () => {
+  test("every stitch of a woman's pair with both charts on it, matched to the studio's yarns", async () => {
     const est = (await estimateFor(w.owner.id))!;
     expect(est.designTitle).toBe("Yarn mittens");
-    expect(est.plainNote).toMatch(/size woman .* less the charted back of hand/);
+    expect(est.plainNote).toMatch(/Every stitch of the left mitten, right mitten .* sized from size woman from the brief/);
     const white = est.lines.find((l) => l.yarnId === yarnIds["Gull white"])!;
     const blue = est.lines.find((l) => l.yarnId === yarnIds["Loch blue"])!;
-    expect(white.uses).toEqual(expect.arrayContaining(["Back of hand (left)", "Back of hand (right)"]));
-    // The main colour carries the plain parts (cuff, palm, thumb, top) of both mittens.
-    const main = [white, blue].find((l) => l.uses.includes("plain parts"))!;
+    expect(white.uses).toEqual(["left mitten, right mitten"]);
+    expect(blue.roles).toEqual(["knitted"]);
+    // The first chart's first colour is the main colour: it carries the plain parts (cuff, palm, thumb, top) of both mittens.
+    const main = white;
     expect(main.metres).toBeGreaterThan(50);
     expect(main.skeins!.skeins).toBe(Math.ceil(main.totalCm / 5000));
     // Gorse is darned and no studio yarn has it: metres only, named in a warning.
@@ -68,7 +70,7 @@ describe("yarn from the design in the quote builder", () => {
 
   test("skeins another live commission holds on a lot are not counted as free", async () => {
     const before = (await estimateFor(w.owner.id))!;
-    const main = before.lines.find((l) => l.uses.includes("plain parts"))!;
+    const main = before.lines.find((l) => l.yarnId === yarnIds["Gull white"])!;
     const need = main.skeins!.skeins;
     const [lot] = await db.insert(yarnLots).values({ yarnId: main.yarnId!, lotCode: "IT-1", stockSkeins: need }).returning();
     const enough = (await estimateFor(w.owner.id))!;

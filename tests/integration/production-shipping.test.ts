@@ -5,7 +5,6 @@ import { POST as postShip } from "@/app/api/commissions/[id]/ship/route";
 import { db } from "@/db";
 import { commissions, shipments, studioMembers } from "@/db/schema";
 import { addDays } from "@/lib/core/schedule";
-import { getPieceLayout } from "@/lib/core/production";
 import { createPieces } from "@/lib/server/production";
 import { getEarliestPromiseDate, getStudioSchedule, newPiecesForGarment, updateAvailability } from "@/lib/server/schedule";
 import { makeWorld, requestWith, signIn, waitForMail, type Jar, type World } from "./helpers";
@@ -100,7 +99,7 @@ describe("capacity and schedule", () => {
     const members = await db.select().from(studioMembers).where(eq(studioMembers.studioId, w.studioId));
     const off = Array.from({ length: 14 }, (_, i) => addDays(plan.today, i));
     for (const m of members) await updateAvailability(owner, w.studioId, { memberId: m.id, weekdayMinutes: [300, 300, 300, 300, 300, 0, 0], daysOff: off, stages: [] });
-    const after = await getEarliestPromiseDate(w.studioId, [{ features: getPieceLayout("hat").pieces[0].features }], now);
+    const after = await getEarliestPromiseDate(w.studioId, newPiecesForGarment("hat"), now);
     expect(after.date > before.date).toBe(true);
   });
 });
@@ -114,8 +113,9 @@ describe("insights and calibration", () => {
     const assistant = await w.actor(w.assistant.id);
     await expect(getInsights(assistant, w.studioId)).rejects.toMatchObject({ status: 403 });
     await expect(proposeRates(owner, w.studioId)).rejects.toMatchObject({ status: 409 });
-    // Ten mittens whose knitting took 1.5 × the default estimate.
-    const features = getPieceLayout("mittens").pieces[0].features;
+    // Ten mittens whose knitting took 1.5 × the default estimate (the test's own features: the
+    // formula below reads its catches, shaping rounds and thumb).
+    const features = { label: "Left mitten", plainStitches: 2500, strandedStitches: 3700, floatCatches: 300, shapingRounds: 15, thumbs: 1, duplicateStitches: 80, ends: 8, carryCm: 40, blocked: true };
     for (let i = 0; i < 10; i++) {
       const { label: _label, ...plain } = features;
       void _label;

@@ -67,7 +67,8 @@ describe("pieces and the board", () => {
 
   test("a bad layout or a commission not yet approved is refused and nothing is written", async () => {
     const early = await commissionIn("proof_approved", "hat");
-    await expect(startProduction(await w.actor(w.owner.id), early, "body_sleeves")).rejects.toMatchObject({ status: 422 });
+    // "single" was a mitten layout; a hat is tracked as its garment's one piece.
+    await expect(startProduction(await w.actor(w.owner.id), early, "single")).rejects.toMatchObject({ status: 422 });
     const [c] = await db.select().from(commissions).where(eq(commissions.id, early));
     expect(c.state).toBe("proof_approved");
     expect((await db.select().from(pieces).where(eq(pieces.commissionId, early))).length).toBe(0);

@@ -84,7 +84,7 @@ describe("PUT and GET /api/commissions/:id/sizing", () => {
     designId = (await res.json()).design.id;
     const actor = await w.actor(w.owner.id);
     const est = (await getCommissionYarnEstimate(actor, await getCommissionFor(actor, w.commissionA)))!;
-    expect(est.plainNote).toMatch(/from the saved sizing at its gauge \(30 sts per 10 cm\), less the charted back of hand/);
+    expect(est.plainNote).toMatch(/sized from the saved sizing at 30 sts per 10 cm, with the design's charts on their areas/);
   });
 
   test("the work sheet PDF opens with the saved sizing's recipe, metric and imperial", async () => {

@@ -1,25 +1,29 @@
-// The live price beside the chart editor: the charts read as pieces (the same reading the quote
-// builder starts from), priced with the studio's policy, and what changed against a baseline.
-// Pure, so the browser prices every edit without asking the server.
+// The live price beside the chart editor: the whole garment (every stitch of every piece, from the
+// commission's sizing) with the design's charts placed on it, read as the quote builder reads it,
+// priced with the studio's policy, and what changed against a baseline. Pure, so the browser
+// prices every edit without asking the server.
 import type { Chart } from "../chart/model";
-import { featuresFromChart } from "../labour/chart-features";
+import { readDesignOnGarment, type ChartProblem, type ReadDesignOptions } from "../design-garment";
 import type { PieceFeatures } from "../labour/piece-features";
+import type { SizingResult } from "../sizing/sizing-result";
 import { composeQuote, type ComposedQuote, type QuotePolicy } from "./compose-quote";
 import { explainChange, type PriceChangeExplanation } from "./explain-change";
 
 export interface ChartPiece {
+  /** the entry's area slug ("back-of-hand", "crown" …) */
+  area: string;
   label: string;
   chart: Chart;
+  options?: Record<string, unknown>;
 }
 
-/** One piece per charted area: a new design with one proof round, blocked (as the quote builder reads a design). */
-export function piecesFromCharts(charts: ChartPiece[], floatLimitStitches?: number, carryLimitCm?: number): PieceFeatures[] {
-  return charts.map((c) => ({
-    ...featuresFromChart(c.chart, c.label, { floatLimitStitches, carryLimitCm }),
-    newDesign: true,
-    proofRounds: 1,
-    blocked: true,
-  }));
+/**
+ * The garment's pieces with the charts on it, as the quote builder's first draft reads them (design,
+ * blocking and finishing per piece, never per chart), and the charts that could not be placed.
+ */
+export function piecesFromGarment(sizing: SizingResult, charts: ChartPiece[], opts: ReadDesignOptions = {}): { pieces: PieceFeatures[]; problems: ChartProblem[] } {
+  const { pieces, problems } = readDesignOnGarment(sizing, charts, { proofRounds: 1, ...opts });
+  return { pieces, problems };
 }
 
 export interface LivePrice {

@@ -1,6 +1,7 @@
-// How a commission splits into pieces for production, with starting features for the labour model.
-// The feature figures are our own starting guesses for a typical adult piece at a firm stranded
-// gauge (not published values); the maker replaces them when the design gives real counts.
+// How a commission splits into pieces for production: the garment's own pieces (a mitten pair is
+// a left and a right mitten, each with its thumb; a pullover's body, sleeves and yoke), with the
+// features the garment reads for each (lib/core/design-garment). No typical figures: the pieces
+// and their counts are the ones the quote priced.
 import type { LabourRates } from "../labour/default-rates";
 import { estimateLabour } from "../labour/estimate-labour";
 import type { PieceFeatures } from "../labour/piece-features";
@@ -13,73 +14,37 @@ export interface PieceLayout {
   pieces: { name: string; features: PieceFeatures }[];
 }
 
-const MITTEN: PieceFeatures = {
-  plainStitches: 2500,
-  strandedStitches: 3700,
-  floatCatches: 300,
-  shapingRounds: 15,
-  thumbs: 1,
-  duplicateStitches: 80,
-  ends: 8,
-  carryCm: 40,
-  blocked: true,
-};
-const HAT: PieceFeatures = {
-  plainStitches: 6500,
-  strandedStitches: 3500,
-  floatCatches: 280,
-  shapingRounds: 12,
-  duplicateStitches: 120,
-  ends: 10,
-  carryCm: 60,
-  blocked: true,
-};
-const BODY: PieceFeatures = {
-  plainStitches: 38000,
-  strandedStitches: 8000,
-  floatCatches: 640,
-  shapingRounds: 20,
-  duplicateStitches: 150,
-  ends: 14,
-  carryCm: 80,
-  blocked: true,
-};
-const SLEEVES: PieceFeatures = { plainStitches: 15000, strandedStitches: 1500, floatCatches: 120, shapingRounds: 30, ends: 6, blocked: true };
+const SUMMED = ["plainStitches", "strandedStitches", "floatCatches", "shapingRounds", "thumbs", "duplicateStitches", "ends", "carryCm", "proofRounds"] as const;
 
-function sum(a: PieceFeatures, b: PieceFeatures): PieceFeatures {
-  const out: PieceFeatures = { blocked: true };
-  for (const k of ["plainStitches", "strandedStitches", "floatCatches", "shapingRounds", "thumbs", "duplicateStitches", "ends", "carryCm"] as const) {
-    const v = (a[k] ?? 0) + (b[k] ?? 0);
-    if (v > 0) out[k] = v;
-  }
+/** Several pieces tracked as one: their counts added, a new design when any is, blocked once. */
+export function joinPieces(name: string, pieces: PieceFeatures[]): PieceFeatures {
+  const out: PieceFeatures = { label: name, newDesign: pieces.some((p) => p.newDesign ?? true), blocked: true };
+  for (const k of SUMMED) out[k] = pieces.reduce((s, p) => s + (p[k] ?? 0), 0);
   return out;
 }
 
-export const PIECE_LAYOUTS: Record<Garment, PieceLayout[]> = {
-  mittens: [
-    {
-      id: "pair",
-      label: "A pair: left and right mitten",
-      pieces: [
-        { name: "Left mitten", features: { ...MITTEN, newDesign: true } },
-        { name: "Right mitten", features: { ...MITTEN, newDesign: false } },
-      ],
-    },
-    { id: "single", label: "One mitten", pieces: [{ name: "Mitten", features: { ...MITTEN } }] },
-  ],
-  hat: [{ id: "one", label: "One piece", pieces: [{ name: "Hat", features: { ...HAT } }] }],
-  pullover: [
-    { id: "body_sleeves", label: "Body and sleeves as two pieces", pieces: [
-      { name: "Body and yoke", features: { ...BODY } },
-      { name: "Sleeves", features: { ...SLEEVES, newDesign: false } },
-    ] },
-    { id: "one", label: "One piece (knitted in one)", pieces: [{ name: "Pullover", features: sum(BODY, SLEEVES) }] },
-  ],
-};
+/**
+ * The ways a commission's garment can be tracked on the board: each of the garment's pieces on its
+ * own (always first), and for a pullover also one piece knitted in one (its pieces' counts added).
+ */
+export function pieceLayouts(garment: Garment, pieces: PieceFeatures[]): PieceLayout[] {
+  const named = pieces.map((f, i) => ({ name: capitalise(f.label ?? `Piece ${i + 1}`), features: f }));
+  const layouts: PieceLayout[] = [{ id: "pieces", label: `The garment's pieces: ${named.map((p) => p.name.toLowerCase()).join(", ")}`, pieces: named }];
+  if (garment === "pullover" && named.length > 1) {
+    layouts.push({ id: "one", label: "One piece (knitted in one)", pieces: [{ name: "Pullover", features: joinPieces("Pullover", pieces) }] });
+  }
+  return layouts;
+}
 
-export function getPieceLayout(garment: Garment, layoutId?: string): PieceLayout {
-  const layouts = PIECE_LAYOUTS[garment];
-  const found = layoutId ? layouts.find((l) => l.id === layoutId) : layouts[0];
+const capitalise = (s: string) => (s ? s.charAt(0).toUpperCase() + s.slice(1) : s);
+
+/** Ids stored or posted before the layouts came from the garment, read as today's. */
+const EARLIER_IDS: Record<string, string> = { pair: "pieces", body_sleeves: "pieces" };
+
+export function getPieceLayout(garment: Garment, pieces: PieceFeatures[], layoutId?: string): PieceLayout {
+  const layouts = pieceLayouts(garment, pieces);
+  const id = layoutId === undefined ? undefined : (EARLIER_IDS[layoutId] ?? (layoutId === "one" && garment !== "pullover" && pieces.length === 1 ? "pieces" : layoutId));
+  const found = id ? layouts.find((l) => l.id === id) : layouts[0];
   if (!found) throw new RangeError(`"${layoutId}" is not a way to split a ${garment} commission (use ${layouts.map((l) => l.id).join(", ")})`);
   return found;
 }

@@ -6,6 +6,7 @@ import { ALLOWANCE_SOURCES, DEFAULT_MARGIN_PERCENT } from "./allowances";
 import { estimateChartYarn } from "./chart-yarn";
 import type { DarningPlanData } from "./darning-plan";
 import type { PlainYarnEstimate } from "./garment-yarn";
+import type { YarnReading } from "../garment/types";
 import { MUNDEN_SOURCE } from "./loop-length";
 import { METRES_PER_YARD, getSkeinNeed, type SkeinNeed } from "./skeins";
 
@@ -85,19 +86,7 @@ export function estimateDesignYarn(args: {
   const margin = args.options?.marginPercent ?? DEFAULT_MARGIN_PERCENT;
   if (!(margin >= 0 && margin <= 100)) throw new Error(`marginPercent must be between 0 and 100 (got ${margin})`);
   const warnings: string[] = [];
-  const groups = new Map<string, { yarn: StudioYarnRecord | null; label: string; hex: string; roles: Set<"knitted" | "darned">; uses: Set<string>; cm: number }>();
-  const add = (colour: PaletteColour, role: "knitted" | "darned", use: string, cm: number) => {
-    const yarn = matchStudioYarn(colour, args.yarns);
-    const key = yarn ? `yarn:${yarn.id}` : `colour:${norm(colour.hex)}|${colour.name}`;
-    let g = groups.get(key);
-    if (!g) {
-      g = { yarn, label: yarn ? `${yarn.name}, ${yarn.colourName}` : colour.name, hex: yarn?.hex ?? colour.hex, roles: new Set(), uses: new Set(), cm: 0 };
-      groups.set(key, g);
-    }
-    g.roles.add(role);
-    g.uses.add(use);
-    g.cm += cm;
-  };
+  const { add, finish } = yarnGroups(args.yarns, margin, warnings);
 
   args.charts.forEach((entry, i) => {
     // The plain parts carry the cast-on when they are counted; otherwise each chart allows for one.
@@ -120,33 +109,75 @@ export function estimateDesignYarn(args: {
     }
   });
 
-  const lines = [...groups.values()]
-    .map((g): DesignYarnLine => {
-      const totalCm = Math.ceil(g.cm * (1 + margin / 100) - 1e-9);
-      if (!g.yarn) warnings.push(`no studio yarn has the colour ${g.label} (${g.hex}): metres only; add the yarn or pick one of the studio's yarns in the chart's palette`);
-      const skeins = g.yarn
-        ? getSkeinNeed(totalCm, { key: g.yarn.id, name: g.label, metresPerSkein: g.yarn.metresPerSkein, gramsPerSkein: g.yarn.gramsPerSkein, lots: g.yarn.lots })
-        : null;
-      if (skeins?.note) warnings.push(skeins.note);
-      return {
-        yarnId: g.yarn?.id ?? null,
-        label: g.label,
-        hex: g.hex,
-        roles: [...g.roles].sort(),
-        uses: [...g.uses],
-        totalCm,
-        metres: ceilTenth(totalCm / 100),
-        yards: ceilTenth(totalCm / 100 / METRES_PER_YARD),
-        skeins,
-      };
-    })
-    .sort((a, b) => b.totalCm - a.totalCm || a.label.localeCompare(b.label));
-  const totalCm = lines.reduce((s, l) => s + l.totalCm, 0);
-  return {
-    marginPercent: margin,
-    lines,
-    totals: { metres: ceilTenth(totalCm / 100), yards: ceilTenth(totalCm / 100 / METRES_PER_YARD) },
-    warnings,
-    sources: [MUNDEN_SOURCE, ALLOWANCE_SOURCES.longTail, ALLOWANCE_SOURCES.coverage, ALLOWANCE_SOURCES.tail, ALLOWANCE_SOURCES.margin],
+  return finish([MUNDEN_SOURCE, ALLOWANCE_SOURCES.longTail, ALLOWANCE_SOURCES.coverage, ALLOWANCE_SOURCES.tail, ALLOWANCE_SOURCES.margin]);
+}
+
+/**
+ * Yarn for a whole garment from its reading (lib/core/garment: every stitch of every piece once,
+ * darned stitches over their real underlay, tails, carries, cast-on and bind-off per colour),
+ * matched to the studio's yarns by colour, with the margin and skeins worked once per yarn.
+ */
+export function estimateGarmentYarn(args: { yarn: YarnReading; yarns: StudioYarnRecord[]; pieces?: string[]; options?: Pick<DesignYarnOptions, "marginPercent"> }): DesignYarnEstimate {
+  const margin = args.options?.marginPercent ?? DEFAULT_MARGIN_PERCENT;
+  if (!(margin >= 0 && margin <= 100)) throw new Error(`marginPercent must be between 0 and 100 (got ${margin})`);
+  const warnings: string[] = [];
+  const { add, finish } = yarnGroups(args.yarns, margin, warnings);
+  const use = args.pieces?.length ? args.pieces.join(", ") : "the garment";
+  for (const c of args.yarn.colours) {
+    // A colour that is only darned has its tails with the darning; carries always are.
+    const knitted = c.knittedStitches > 0 ? c.cm.knitted + c.cm.floats + c.cm.tails + c.cm.castOn + c.cm.bindOff : 0;
+    const darned = c.cm.darned + c.cm.carries + (c.knittedStitches > 0 ? 0 : c.cm.tails);
+    if (knitted > 0) add(c, "knitted", use, knitted);
+    if (darned > 0) add(c, "darned", use, darned);
+  }
+  return finish([...args.yarn.sources, ALLOWANCE_SOURCES.margin]);
+}
+
+/** Lengths grouped per studio yarn (or per colour no studio yarn has), then margin and skeins once per group. */
+function yarnGroups(yarns: StudioYarnRecord[], margin: number, warnings: string[]) {
+  const groups = new Map<string, { yarn: StudioYarnRecord | null; label: string; hex: string; roles: Set<"knitted" | "darned">; uses: Set<string>; cm: number }>();
+  const add = (colour: Pick<PaletteColour, "name" | "hex">, role: "knitted" | "darned", use: string, cm: number) => {
+    const yarn = matchStudioYarn(colour, yarns);
+    const key = yarn ? `yarn:${yarn.id}` : `colour:${norm(colour.hex)}|${colour.name}`;
+    let g = groups.get(key);
+    if (!g) {
+      g = { yarn, label: yarn ? `${yarn.name}, ${yarn.colourName}` : colour.name, hex: yarn?.hex ?? colour.hex, roles: new Set(), uses: new Set(), cm: 0 };
+      groups.set(key, g);
+    }
+    g.roles.add(role);
+    g.uses.add(use);
+    g.cm += cm;
   };
+  const finish = (sources: string[]): DesignYarnEstimate => {
+    const lines = [...groups.values()]
+      .map((g): DesignYarnLine => {
+        const totalCm = Math.ceil(g.cm * (1 + margin / 100) - 1e-9);
+        if (!g.yarn) warnings.push(`no studio yarn has the colour ${g.label} (${g.hex}): metres only; add the yarn or pick one of the studio's yarns in the chart's palette`);
+        const skeins = g.yarn
+          ? getSkeinNeed(totalCm, { key: g.yarn.id, name: g.label, metresPerSkein: g.yarn.metresPerSkein, gramsPerSkein: g.yarn.gramsPerSkein, lots: g.yarn.lots })
+          : null;
+        if (skeins?.note) warnings.push(skeins.note);
+        return {
+          yarnId: g.yarn?.id ?? null,
+          label: g.label,
+          hex: g.hex,
+          roles: [...g.roles].sort(),
+          uses: [...g.uses],
+          totalCm,
+          metres: ceilTenth(totalCm / 100),
+          yards: ceilTenth(totalCm / 100 / METRES_PER_YARD),
+          skeins,
+        };
+      })
+      .sort((a, b) => b.totalCm - a.totalCm || a.label.localeCompare(b.label));
+    const totalCm = lines.reduce((s, l) => s + l.totalCm, 0);
+    return {
+      marginPercent: margin,
+      lines,
+      totals: { metres: ceilTenth(totalCm / 100), yards: ceilTenth(totalCm / 100 / METRES_PER_YARD) },
+      warnings,
+      sources,
+    };
+  };
+  return { add, finish };
 }

@@ -8,4 +8,4 @@ export { countAreas, estimateChartYarn, type ChartYarnEstimate, type ChartYarnOp
 export { estimatePlainYarn, type PlainYarnEstimate } from "./garment-yarn";
 export { METRES_PER_YARD, getSkeinNeed, type SkeinNeed, type YarnRecord } from "./skeins";
 export { estimateYarn, yarnInputSchema, yarnOptionsSchema, yarnRecordSchema, type ColourEstimate, type YarnEstimate } from "./estimate-yarn";
-export { estimateDesignYarn, matchStudioYarn, type DesignChartYarnInput, type DesignYarnEstimate, type DesignYarnLine, type DesignYarnOptions, type StudioYarnRecord } from "./design-yarn";
+export { estimateDesignYarn, estimateGarmentYarn, matchStudioYarn, type DesignChartYarnInput, type DesignYarnEstimate, type DesignYarnLine, type DesignYarnOptions, type StudioYarnRecord } from "./design-yarn";

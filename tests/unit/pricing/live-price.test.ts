@@ -2,7 +2,9 @@ import { describe, expect, test } from "vitest";
 import { createChart } from "@/lib/core/chart/model";
 import type { PieceFeatures } from "@/lib/core/labour/piece-features";
 import type { QuotePolicy } from "@/lib/core/pricing/compose-quote";
-import { livePrice, piecesFromCharts } from "@/lib/core/pricing/live-price";
+import { rowShape } from "@/lib/core/design-garment";
+import { livePrice, piecesFromGarment } from "@/lib/core/pricing/live-price";
+import { sizeGarment } from "@/lib/core/sizing";
 
 const mitten: PieceFeatures = { label: "Back", newDesign: true, proofRounds: 1, plainStitches: 2000, strandedStitches: 3000, duplicateStitches: 60, ends: 6, carryCm: 40, blocked: true };
 const more: PieceFeatures = { ...mitten, duplicateStitches: 98, ends: 10 };
@@ -42,18 +44,53 @@ describe("livePrice: two feature sets → sentence and amount", () => {
   });
 });
 
-describe("piecesFromCharts", () => {
-  test("a third colour is darned along its route: stitches and two ends", () => {
-    const palette = [
-      { key: "a", name: "Cream", hex: "#ffffff" },
-      { key: "b", name: "Blue", hex: "#0000ff" },
-      { key: "c", name: "Red", hex: "#ff0000" },
-    ];
-    const chart = createChart(10, 2, { stitchesPer10cm: 30, rowsPer10cm: 32 }, palette);
-    chart.cells.set([1, 1, 1, 2, 0, 0, 0, 0, 0, 0], 0);
-    // Bottom row b b b c a a a a a a, top row all a: pair a+b is knitted (row 1 stranded, row 2
-    // plain, 10 each); the single c is darned: one strand, 2 ends.
-    const [piece] = piecesFromCharts([{ label: "Cuff", chart }]);
-    expect(piece).toMatchObject({ label: "Cuff", newDesign: true, proofRounds: 1, blocked: true, plainStitches: 10, strandedStitches: 10, duplicateStitches: 1, ends: 2 });
+describe("piecesFromGarment: the live price reads the whole garment", () => {
+  // A child mitten pair at 32 sts / 36 rnds per 10 cm; every count below is read from the size
+  // verb's own output (pieces × quantity), not from the garment reading under test.
+  const sizing = sizeGarment({ garment: "mitten", size: "child", gauge: { stitchesPer10cm: 32, rowsPer10cm: 36 } });
+  const sizedStitches = sizing.pieces.reduce((s, p) => s + p.stitches * p.quantity, 0);
+  const back = sizing.charts.find((c) => c.area === "back of hand")!;
+  const palette = [
+    { key: "a", name: "Cream", hex: "#ffffff" },
+    { key: "b", name: "Blue", hex: "#0000ff" },
+  ];
+
+  test("no charts: every stitch of both mittens, plain; design once, blocking per mitten", () => {
+    const { pieces, problems } = piecesFromGarment(sizing, []);
+    expect(problems).toEqual([]);
+    expect(pieces.map((p) => p.label)).toEqual(["left mitten", "right mitten"]);
+    expect(pieces.reduce((s, p) => s + (p.plainStitches ?? 0) + (p.strandedStitches ?? 0), 0)).toBe(sizedStitches);
+    expect(pieces.map((p) => p.newDesign)).toEqual([true, false]);
+    expect(pieces.map((p) => p.thumbs)).toEqual([1, 1]);
+    expect(pieces.every((p) => p.blocked === true && p.strandedStitches === 0)).toBe(true);
+  });
+
+  test("a two-colour back-of-hand chart adds exactly the area's in-shape stitches to stranded, per mitten; totals unchanged", () => {
+    const chart = createChart(back.width, back.height, sizing.gauge, palette);
+    // Two colours in every row, and nothing painted outside the narrowing top.
+    for (let y = 0; y < back.height; y++) {
+      const mask = rowShape(back, y);
+      const x = mask.indexOf(true);
+      chart.cells[y * back.width + x] = 1;
+    }
+    const plain = piecesFromGarment(sizing, []).pieces;
+    const { pieces, problems } = piecesFromGarment(sizing, [{ area: "back-of-hand", label: "Back", chart }]);
+    expect(problems).toEqual([]);
+    for (const [i, p] of pieces.entries()) {
+      expect((p.plainStitches ?? 0) + (p.strandedStitches ?? 0)).toBe((plain[i].plainStitches ?? 0) + (plain[i].strandedStitches ?? 0));
+    }
+    // The garment rule: exactly the area's in-shape stitches (the size verb's charts[].stitches), on each mitten.
+    expect(pieces.map((p) => p.strandedStitches)).toEqual([back.stitches, back.stitches]);
+  });
+
+  test("a chart of the wrong size or an unknown area is reported with its label, never silently dropped", () => {
+    const wrong = createChart(back.width + 1, back.height, sizing.gauge, palette);
+    const { problems } = piecesFromGarment(sizing, [
+      { area: "back-of-hand", label: "Too wide", chart: wrong },
+      { area: "sleeve", label: "Elsewhere", chart: createChart(4, 4, sizing.gauge, palette) },
+    ]);
+    expect(problems.map((p) => p.label)).toEqual(["Too wide", "Elsewhere"]);
+    expect(problems[0].message).toMatch(/back of hand is \d+ stitches × \d+ rows/);
+    expect(problems[1].message).toMatch(/not an area of this mitten/);
   });
 });

@@ -11,7 +11,7 @@ import {
   getPieceLayout,
   intervalsOverlap,
   localDate,
-  PIECE_LAYOUTS,
+  pieceLayouts,
   remainingMinutes,
   timerFlag,
   timerMinutes,
@@ -98,9 +98,16 @@ describe("estimates", () => {
     expect(formatMinutes(45)).toBe("45 min");
     expect(formatMinutes(185)).toBe("3 h 05 min");
   });
+  // The layouts are built from the garment's own pieces (lib/core/design-garment); these stand-ins
+  // are the test's own counts, not typical figures of the app.
+  const left = { label: "left mitten", newDesign: true, proofRounds: 1, plainStitches: 2500, strandedStitches: 3700, floatCatches: 300, shapingRounds: 15, thumbs: 1, blocked: true };
+  const right = { ...left, label: "right mitten", newDesign: false, proofRounds: 0 };
+  const body = { label: "body", newDesign: true, plainStitches: 30000, strandedStitches: 0, shapingRounds: 4, blocked: true };
+  const sleeve = (side: string) => ({ label: `${side} sleeve`, newDesign: false, plainStitches: 9000, shapingRounds: 12, blocked: true });
+  const yoke = { label: "yoke", newDesign: false, plainStitches: 3000, strandedStitches: 6000, floatCatches: 200, shapingRounds: 3, blocked: true };
   test("every layout's pieces get a positive knitting estimate with P80 above P50", () => {
-    for (const layouts of Object.values(PIECE_LAYOUTS)) {
-      for (const l of layouts) {
+    for (const [g, ps] of [["mittens", [left, right]], ["pullover", [body, sleeve("left"), sleeve("right"), yoke]]] as const) {
+      for (const l of pieceLayouts(g, [...ps])) {
         for (const p of l.pieces) {
           const { estimate, dryingHours } = estimatePiece(p.features);
           expect(estimate.knitting.p50).toBeGreaterThan(0);
@@ -110,12 +117,20 @@ describe("estimates", () => {
       }
     }
   });
-  test("a pair of mittens is two pieces, a hat one, a pullover one or two; unknown layouts are refused", () => {
-    expect(getPieceLayout("mittens").pieces).toHaveLength(2);
-    expect(getPieceLayout("hat").pieces).toHaveLength(1);
-    expect(getPieceLayout("pullover", "one").pieces).toHaveLength(1);
-    expect(getPieceLayout("pullover", "body_sleeves").pieces).toHaveLength(2);
-    expect(() => getPieceLayout("hat", "pair")).toThrow(/not a way to split/);
+  test("the layouts are the garment's pieces one by one (a pullover may be one piece); earlier ids still read; unknown layouts are refused", () => {
+    expect(getPieceLayout("mittens", [left, right]).pieces.map((p) => p.name)).toEqual(["Left mitten", "Right mitten"]);
+    expect(getPieceLayout("mittens", [left, right], "pair").id).toBe("pieces");
+    expect(getPieceLayout("hat", [{ ...left, label: "hat", thumbs: 0 }], "one").pieces).toHaveLength(1);
+    const ps = [body, sleeve("left"), sleeve("right"), yoke];
+    expect(getPieceLayout("pullover", ps, "body_sleeves").pieces).toHaveLength(4);
+    const one = getPieceLayout("pullover", ps, "one").pieces;
+    expect(one).toHaveLength(1);
+    // Knitted in one: every stitch of the four pieces, still counted once.
+    expect(one[0].features.plainStitches).toBe(30000 + 9000 + 9000 + 3000);
+    expect(one[0].features.strandedStitches).toBe(6000);
+    expect(one[0].features.newDesign).toBe(true);
+    expect(() => getPieceLayout("hat", [left], "one-and-a-half")).toThrow(/not a way to split/);
+    expect(() => getPieceLayout("mittens", [left, right], "one")).toThrow(/not a way to split/);
   });
 });
 

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { Card, PageTitle } from "@/components/ui/card";
 import { Notice } from "@/components/ui/notice";
-import { formatMinutes, PIECE_LAYOUTS, type Garment } from "@/lib/core/production";
+import { formatMinutes } from "@/lib/core/production";
 import { PIECE_STAGE_LABELS, PIECE_STAGES } from "@/lib/core/workflow/pieces";
 import { formatDay } from "@/lib/format";
 import { requireStudioMember } from "@/lib/server/page-guards";
@@ -85,8 +85,16 @@ export default async function BoardPage() {
                   commissionId={c.id}
                   title={c.title}
                   start={c.state === "proof_approved"}
-                  layouts={PIECE_LAYOUTS[c.garment as Garment].map((l) => ({ id: l.id, label: l.label }))}
+                  layouts={c.layouts.map((l) => ({ id: l.id, label: l.label }))}
                 />
+                {c.layouts[0] ? (
+                  <p className="mt-1 text-sm tabular-nums" data-testid="garment-estimate">
+                    Knitting estimate:{" "}
+                    {c.layouts[0].pieces.map((p) => `${p.name} ${formatMinutes(p.estimate.knitting?.p50 ?? 0)}`).join(", ")} (total{" "}
+                    {formatMinutes(c.layouts[0].pieces.reduce((s, p) => s + (p.estimate.knitting?.p50 ?? 0), 0))})
+                  </p>
+                ) : null}
+                {c.note ? <p className="text-sm text-bark">{c.note}</p> : null}
               </li>
             ))}
           </ul>

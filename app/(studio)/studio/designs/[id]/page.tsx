@@ -9,7 +9,9 @@ import { getDesignWithHead, listStudioYarnColours } from "@/lib/server/designs";
 import { requireStudioMember } from "@/lib/server/page-guards";
 import { getCommissionFor } from "@/lib/server/queries/commissions";
 import { policyFrom } from "@/lib/server/quotes";
+import { commissionSizing } from "@/lib/server/garment";
 import { loadStudioSettings } from "@/lib/server/settings";
+import { loadSizing } from "@/lib/server/sizing";
 
 export const metadata = { title: "Design" };
 
@@ -22,10 +24,20 @@ export default async function DesignPage({ params }: { params: Promise<{ id: str
   const { design, head } = found;
   const [yarns, settings] = await Promise.all([listStudioYarnColours(actor, design.studioId), loadStudioSettings(design.studioId)]);
   // The live price is shown to studio members only (this page is members-only); prices are the commission's currency.
-  const commission = design.commissionId ? await getCommissionFor(actor, design.commissionId).catch(() => null) : null;
+  const found0 = design.commissionId ? await getCommissionFor(actor, design.commissionId).catch(() => null) : null;
+  const commission = found0 ? { ...found0, sizing: await loadSizing(found0.id) } : null;
   const livePricing = commission
-    ? { policy: policyFrom(settings, commission.currency), designFeeMinor: settings.designFeeMinor, floatLimitStitches: settings.floatLimitStitches, carryLimitCm: settings.carryLimitCm }
+    ? { policy: policyFrom(settings, commission.currency), designFeeMinor: settings.designFeeMinor, floatLimitStitches: settings.floatLimitStitches, floatLimitCm: settings.floatLimitCm, carryLimitCm: settings.carryLimitCm }
     : undefined;
+  // The garment the live price reads and the areas' shapes: the commission's sizing (saved, else the brief, else a standard size).
+  const firstGauge = (head.charts[0]?.chart as { gauge?: { stitchesPer10cm: number; rowsPer10cm: number } } | undefined)?.gauge;
+  const sized = commission ? (() => {
+    try {
+      return { ok: true as const, ...commissionSizing(commission, firstGauge) };
+    } catch (e) {
+      return { ok: false as const, note: `The garment could not be sized: ${(e as Error).message}` };
+    }
+  })() : null;
   const locked = design.lockedVersionId !== null || !can(actor, "commission.work", design.studioId);
   return (
     <>
@@ -54,6 +66,8 @@ export default async function DesignPage({ params }: { params: Promise<{ id: str
         locked={locked}
         inTheRound={design.garment !== null}
         livePricing={livePricing}
+        sizing={sized?.ok ? sized.sizing : null}
+        sizingNote={sized ? (sized.ok ? sized.note : sized.note) : null}
         planDefaults={{ carryLimitCm: settings.carryLimitCm, floatLimitStitches: settings.floatLimitStitches, floatLimitCm: settings.floatLimitCm }}
       />
     </>

@@ -29,7 +29,8 @@ export function NewDesignForm(props: {
 }) {
   const router = useRouter();
   const [title, setTitle] = useState(props.defaultTitle);
-  const [picked, setPicked] = useState<string[]>(props.offers.length ? [props.offers.find((o) => o.area.includes("back") || o.area.includes("band"))?.area ?? props.offers[0].area] : []);
+  // One chart per decorated area of the garment, at the area's size (the maker unticks what stays plain).
+  const [picked, setPicked] = useState<string[]>(props.offers.map((o) => o.area));
   const [width, setWidth] = useState("30");
   const [height, setHeight] = useState("40");
   const [sts, setSts] = useState(String(props.gauge.stitchesPer10cm));

@@ -50,6 +50,7 @@ export default async function QuoteBuilderPage({ params }: { params: Promise<{ i
         initialValidUntil={latest?.status === "draft" ? (latest.validUntil ?? "") : ""}
         initialMessage={latest?.messageToClient ?? ""}
         featuresFromDesign={data.featuresFromDesign}
+        garment={data.garment}
         yarnEstimate={data.yarnEstimate}
         scheduleEarliest={data.scheduleEarliest}
       />
