@@ -30,6 +30,8 @@ interface JsonSchema {
 export interface Pools {
   /** ids that exist (so some calls get past the "not found" checks) */
   ids: string[];
+  /** ids of the kind a field's name asks for (commissionId → commissions), when there are some */
+  byName?: (name: string) => string[] | undefined;
 }
 
 const deep = (n: number): unknown => {
@@ -87,8 +89,11 @@ function clampNum(v: number | undefined, fallback: number): number {
   return Math.max(-1e9, Math.min(1e9, v));
 }
 
-function stringArb(s: JsonSchema, pools: Pools): fc.Arbitrary<unknown> {
-  if (s.format === "uuid") return fc.oneof(fc.constantFrom(...pools.ids), fc.uuid());
+function stringArb(s: JsonSchema, pools: Pools, hint: string): fc.Arbitrary<unknown> {
+  if (s.format === "uuid") {
+    const named = pools.byName?.(hint);
+    return named?.length ? fc.oneof({ arbitrary: fc.constantFrom(...named), weight: 3 }, { arbitrary: fc.uuid(), weight: 1 }) : fc.oneof(fc.constantFrom(...pools.ids), fc.uuid());
+  }
   if (s.format === "email") return fc.emailAddress();
   const max = Math.min(s.maxLength ?? 40, 60);
   const min = Math.min(s.minLength ?? 0, max);
@@ -103,17 +108,17 @@ function stringArb(s: JsonSchema, pools: Pools): fc.Arbitrary<unknown> {
 }
 
 /** An arbitrary of inputs of roughly the schema's shape (refinements ignored). */
-export function arbitraryFromJsonSchema(s: JsonSchema | boolean | undefined, pools: Pools, depth = 0): fc.Arbitrary<unknown> {
+export function arbitraryFromJsonSchema(s: JsonSchema | boolean | undefined, pools: Pools, depth = 0, hint = ""): fc.Arbitrary<unknown> {
   if (s === undefined || s === true || typeof s !== "object" || depth > 6) return fc.jsonValue({ maxDepth: 2 });
   if (s.const !== undefined) return fc.constant(s.const);
   if (s.enum) return fc.constantFrom(...s.enum);
   const alts = s.anyOf ?? s.oneOf;
-  if (alts?.length) return fc.oneof(...alts.map((a) => arbitraryFromJsonSchema(a, pools, depth + 1)));
-  if (s.allOf?.length) return arbitraryFromJsonSchema(s.allOf[0], pools, depth + 1);
+  if (alts?.length) return fc.oneof(...alts.map((a) => arbitraryFromJsonSchema(a, pools, depth + 1, hint)));
+  if (s.allOf?.length) return arbitraryFromJsonSchema(s.allOf[0], pools, depth + 1, hint);
   const type = Array.isArray(s.type) ? s.type[0] : s.type;
   switch (type) {
     case "string":
-      return stringArb(s, pools);
+      return stringArb(s, pools, hint);
     case "integer":
       return fc.integer({ min: Math.ceil(clampNum(s.minimum ?? s.exclusiveMinimum, -1000)), max: Math.floor(clampNum(s.maximum ?? s.exclusiveMaximum, 1_000_000)) });
     case "number":
@@ -123,15 +128,15 @@ export function arbitraryFromJsonSchema(s: JsonSchema | boolean | undefined, poo
     case "null":
       return fc.constant(null);
     case "array": {
-      if (s.prefixItems?.length) return fc.tuple(...s.prefixItems.map((p) => arbitraryFromJsonSchema(p, pools, depth + 1)));
+      if (s.prefixItems?.length) return fc.tuple(...s.prefixItems.map((p) => arbitraryFromJsonSchema(p, pools, depth + 1, hint)));
       const minLength = s.minItems ?? 0;
       const maxLength = Math.max(minLength, Math.min(s.maxItems ?? 3, 3));
-      return fc.array(arbitraryFromJsonSchema(s.items, pools, depth + 1), { minLength, maxLength });
+      return fc.array(arbitraryFromJsonSchema(s.items, pools, depth + 1, hint), { minLength, maxLength });
     }
     case "object": {
       const props = s.properties ?? {};
       const model: Record<string, fc.Arbitrary<unknown>> = {};
-      for (const [k, v] of Object.entries(props)) model[k] = arbitraryFromJsonSchema(v, pools, depth + 1);
+      for (const [k, v] of Object.entries(props)) model[k] = arbitraryFromJsonSchema(v, pools, depth + 1, k);
       if (!Object.keys(model).length) return fc.dictionary(fc.string({ maxLength: 8 }), fc.jsonValue({ maxDepth: 1 }), { maxKeys: 3 });
       return fc.record(model, { requiredKeys: (s.required ?? []).filter((k) => k in model) });
     }
@@ -203,4 +208,39 @@ export function toFormData(value: unknown): FormData {
     else form.set(k, typeof v === "string" ? v : typeof v === "boolean" ? (v ? "on" : "") : JSON.stringify(v) ?? "");
   }
   return form;
+}
+
+/**
+ * Inputs the schema accepts (found by sampling): the one with the fewest values and the one with the
+ * most among the first few. `asSent` turns a value into what the schema sees (FormData entries for actions).
+ */
+export function validBases(schema: z.ZodType | undefined, pools: Pools, seed: number, asSent: (v: unknown) => unknown = (v) => v): unknown[] {
+  if (!schema) return [];
+  const found = fc
+    .sample(arbitraryFromZod(schema, pools), { numRuns: 150, seed })
+    .filter((v) => schema.safeParse(asSent(v)).success)
+    .slice(0, 8);
+  const size = (v: unknown): number => (v && typeof v === "object" ? Object.values(v).reduce<number>((n, x) => n + size(x), 1) : 1);
+  // The fullest reaches optional fields; the barest names the fewest other rows, so it gets furthest.
+  const sorted = found.sort((a, b) => size(b) - size(a));
+  return sorted.length > 1 ? [sorted[sorted.length - 1], sorted[0]] : sorted;
+}
+
+/** One bad value at each leaf of a valid input in turn: unstorable text, impossible dates, numbers out of range. */
+export function plantEach(base: unknown): unknown[] {
+  const out: unknown[] = [];
+  let n = 0;
+  const visit = (v: unknown, at: (bad: unknown) => unknown) => {
+    if (typeof v === "string") {
+      out.push(at(DATE.test(v) ? "2026-02-30" : n++ % 2 ? `${v}\ud800` : `${v}\u0000`));
+    } else if (typeof v === "number") {
+      out.push(at([2_147_483_648, -1, 1e308][n++ % 3]));
+    } else if (Array.isArray(v)) {
+      v.forEach((x, i) => visit(x, (bad) => at(v.map((y, j) => (j === i ? bad : y)))));
+    } else if (v && typeof v === "object") {
+      for (const [k, x] of Object.entries(v)) visit(x, (bad) => at({ ...v, [k]: bad }));
+    }
+  };
+  visit(base, (bad) => bad);
+  return out;
 }
