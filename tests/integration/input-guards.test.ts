@@ -33,6 +33,18 @@ describe("the auth route checks input before better-auth, and still works", () =
     expect(signIn.headers.getSetCookie().join(";")).toMatch(/session_token=/);
   });
 
+  test("a password reset link through the route lands on the reset form with its token", async () => {
+    const email = freshEmail("reset");
+    await authPost(authRequest("/sign-up/email", { name: "Reset Me", email, password: "a-long-enough-pass" }));
+    const res = await authPost(authRequest("/request-password-reset", { email, redirectTo: "/reset-password" }));
+    expect(res.status).toBe(200);
+    const mail = await waitForMail(email, (m) => m.links.some((l) => l.includes("/api/auth/reset-password/")));
+    const link = mail.links.find((l) => l.includes("/api/auth/reset-password/"))!;
+    const open = await authGet(new Request(link, { headers: { origin: BASE }, redirect: "manual" }));
+    expect(open.status).toBe(302);
+    expect(open.headers.get("location")).toMatch(/\/reset-password\?token=/);
+  });
+
   test.each([["//evil.test/x"], ["https://evil.test"], ["/\t/evil.test"], ["/\n/x"], ["/\\evil.test"], ["javascript:alert(1)"]])("callbackURL %j is refused with 400", async (callbackURL) => {
     const res = await authPost(authRequest("/sign-in/magic-link", { email: freshEmail("cb"), callbackURL }));
     expect(res.status).toBe(400);
