@@ -1,14 +1,18 @@
-// Runs before every request except static files: (1) moves client-sent forwarding headers aside so
+// Runs before every request except static files: (0) a server action declaring more than the body
+// limit gets 413 here, not a 500 from inside the framework (lib/action-body-limit.ts); (1) moves client-sent forwarding headers aside so
 // handlers see the socket's address (lib/server/client-address.ts); (2) the security headers and the
 // per-request CSP nonce (lib/server/security-headers.ts; Next.js's documented nonce pattern).
 // Sessions are checked in each page, action and route, never here.
 import { randomBytes } from "node:crypto";
 import { NextResponse, type NextRequest } from "next/server";
+import { oversizedActionResponse } from "@/lib/action-body-limit";
 import { env } from "@/lib/env";
 import { moveForwardingHeaders } from "@/lib/server/client-address";
 import { checkoutOrigins, contentSecurityPolicy, securityHeaders, storageOrigins } from "@/lib/server/security-headers";
 
 export function proxy(request: NextRequest) {
+  const tooLarge = oversizedActionResponse(request.method, request.headers);
+  if (tooLarge) return tooLarge;
   const nonce = randomBytes(16).toString("base64");
   const options = {
     nonce,

@@ -2,6 +2,7 @@
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { MOVES } from "@/lib/core/workflow";
+import { safeText } from "@/lib/schemas/common";
 import { formAction } from "@/lib/server/action";
 import { asClient } from "@/lib/server/authz";
 import { moveCommission } from "@/lib/server/workflow";
@@ -10,7 +11,7 @@ const schema = z.object({
   commissionId: z.string().uuid(),
   move: z.enum(MOVES),
   as: z.enum(["studio", "client"]),
-  reason: z.string().trim().max(500, "Keep the reason to 500 characters.").optional(),
+  reason: safeText(500, "Keep the reason to 500 characters.").optional(),
 });
 
 /** One button of the life-cycle panel: the machine and moveCommission decide; a refusal comes back as a message. */

@@ -1,10 +1,10 @@
 // Form schemas for signing in and up, shared by the forms and the server checks.
 import { z } from "zod";
+import { safeString } from "./common";
 
 export const PASSWORD_MIN = 10;
 
-export const email = z
-  .string()
+export const email = safeString()
   .trim()
   .min(1, "Enter your e-mail address.")
   .email("That does not look like an e-mail address (it needs an @ and a domain).");
@@ -33,7 +33,7 @@ export const magicLinkSchema = z.object({ email });
 
 export const signUpSchema = z
   .object({
-    name: z.string().trim().min(1, "Tell us your name.").max(80, "Use at most 80 characters."),
+    name: safeString().trim().min(1, "Tell us your name.").max(80, "Use at most 80 characters."),
     email,
     password,
     confirm: z.string(),
@@ -48,11 +48,8 @@ export const resetSchema = z
 
 export const inviteSchema = z.object({ email });
 
-/** Only same-site paths may be used as a "come back here" target. */
-export function safeNext(value: string | undefined | null, fallback = "/home"): string {
-  if (!value || !value.startsWith("/") || value.startsWith("//") || value.includes("\\")) return fallback;
-  return value;
-}
+/** Only same-site paths may be used as a "come back here" target (the one helper: lib/safe-redirect). */
+export { safeNext } from "@/lib/safe-redirect";
 
 /** Messages for better-auth's error codes, in our words. */
 export function authErrorMessage(code: string | undefined, status?: number): string {

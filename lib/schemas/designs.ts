@@ -2,21 +2,21 @@
 // Charts are checked twice on purpose: loosely here (shape), strictly by the chart core
 // (parseChart / parseDesign), whose messages name the row and stitch in trade numbering.
 import { z } from "zod";
+import { safeString } from "./common";
 
 export const designIdSchema = z.string().uuid("Not a design id");
 
 /** One decorated piece's chart as the editor sends it (format v1 plus lettering layers). */
 export const designChartEntrySchema = z.object({
-  area: z
-    .string()
+  area: safeString()
     .trim()
     .min(1, "Name the area (for example back-of-hand).")
     .max(60, "Keep the area name under 60 characters.")
     .regex(/^[a-z0-9][a-z0-9-]*$/, "Use lower-case letters, digits and dashes for the area (for example hat-band)."),
-  label: z.string().trim().min(1, "Give the chart a label.").max(80, "Keep the label under 80 characters."),
+  label: safeString().trim().min(1, "Give the chart a label.").max(80, "Keep the label under 80 characters."),
   chart: z.unknown().refine((v) => v !== undefined && v !== null, "The chart is missing."),
   lettering: z.array(z.unknown()).max(20, "At most 20 lettering layers per chart.").optional(),
-  options: z.record(z.string(), z.unknown()).optional(),
+  options: z.record(safeString().max(60), z.unknown()).optional(),
 });
 
 export const designChartsSchema = z
@@ -33,7 +33,7 @@ export const designChartsSchema = z
 
 export const createDesignSchema = z.object({
   commissionId: z.string().uuid("Not a commission id"),
-  title: z.string().trim().min(1, "Give the design a title.").max(120, "Keep the title under 120 characters."),
+  title: safeString().trim().min(1, "Give the design a title.").max(120, "Keep the title under 120 characters."),
   charts: designChartsSchema,
 });
 
@@ -41,7 +41,7 @@ export const saveDesignVersionSchema = z.object({
   /** the version the editor started from; null only when the design has no version yet */
   parentVersionId: z.string().uuid("Not a version id").nullable(),
   charts: designChartsSchema,
-  note: z.string().trim().max(200, "Keep the note under 200 characters.").optional(),
+  note: safeString().trim().max(200, "Keep the note under 200 characters.").optional(),
 });
 
 export const listDesignsQuerySchema = z.object({

@@ -1,9 +1,10 @@
 // Messages between a studio and a client about one commission.
 import { z } from "zod";
+import { safeString } from "./common";
 
 export const postMessageSchema = z
   .object({
-    body: z.string().trim().max(4000, "Keep a message to 4000 characters."),
+    body: safeString().trim().max(4000, "Keep a message to 4000 characters."),
     /** the sender's own id for the message: a retried send with the same key is stored once */
     clientKey: z.string().regex(/^[A-Za-z0-9_-]{8,64}$/, "clientKey must be 8–64 letters, digits, - or _."),
     uploadIds: z.array(z.string().uuid()).max(6, "Attach at most 6 photos to one message.").default([]),

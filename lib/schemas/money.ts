@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { safeString } from "./common";
 import { getMinorDigits } from "@/lib/core/pricing/currency";
 
 /** "88.50" in a currency's major unit → integer minor units, by string (never float) arithmetic. */
@@ -14,8 +15,7 @@ export function priceFormSchema(currency: string) {
   const digits = getMinorDigits(currency);
   return z.object({
     commissionId: z.string().uuid(),
-    price: z
-      .string()
+    price: safeString()
       .trim()
       .min(1, "Enter the agreed price.")
       .transform((v, ctx) => {

@@ -1,9 +1,10 @@
 // Filters of the studio's payments table (kept in the URL) and the payment forms.
 import { z } from "zod";
+import { calendarDate, safeString } from "./common";
 
 export const PAYMENT_STATUSES = ["open", "paid", "failed", "expired", "refunded", "partially_refunded"] as const;
 
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Use a date like 2027-01-31.");
+const isoDate = calendarDate("Use a date like 2027-01-31.");
 
 export const paymentFiltersSchema = z
   .object({
@@ -23,7 +24,7 @@ export const checkoutFormSchema = z.object({
 export const refundFormSchema = z.object({
   commissionId: z.string().uuid(),
   cancel: z.literal("on").optional(),
-  reason: z.string().trim().max(500).default(""),
+  reason: safeString().trim().max(500).default(""),
 });
 
 export const commissionIdFormSchema = z.object({ commissionId: z.string().uuid() });

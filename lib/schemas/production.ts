@@ -1,5 +1,6 @@
 // Zod schemas for production: pieces, stage moves, timers, manual time entries, availability, shipping.
 import { z } from "zod";
+import { calendarDate, safeString } from "./common";
 import { pieceFeaturesSchema } from "./quotes";
 import { PIECE_STAGES } from "@/lib/core/workflow/pieces";
 
@@ -16,7 +17,7 @@ const id = (what: string) => z.string().uuid(`Not a ${what} id`);
 
 export const createPiecesSchema = z.object({
   commissionId: id("commission"),
-  layout: z.string().min(1, "Choose how the commission splits into pieces.").max(40),
+  layout: safeString().min(1, "Choose how the commission splits into pieces.").max(40),
 });
 
 export const movePieceSchema = z.object({
@@ -31,7 +32,7 @@ export const startTimerSchema = z.object({
 
 export const timerActionSchema = z.object({ action: z.enum(["pause", "resume", "stop"]) });
 
-const isoDay = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Use a date like 2026-12-01.");
+const isoDay = calendarDate("Use a date like 2026-12-01.");
 const clock = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, "Use a time like 09:30.");
 const minutes = z.coerce
   .number({ message: "Enter the minutes as a number." })
@@ -45,13 +46,13 @@ export const manualEntrySchema = z.object({
   date: isoDay,
   startTime: clock.default("09:00"),
   minutes,
-  note: z.string().trim().max(500, "Keep the note under 500 characters.").default(""),
+  note: safeString().trim().max(500, "Keep the note under 500 characters.").default(""),
 });
 export type ManualEntryInput = z.input<typeof manualEntrySchema>;
 
 export const editEntrySchema = z.object({
   minutes,
-  note: z.string().trim().max(500, "Keep the note under 500 characters.").optional(),
+  note: safeString().trim().max(500, "Keep the note under 500 characters.").optional(),
   /** confirms a flagged timer's minutes */
   confirm: z.boolean().optional(),
 });
@@ -67,8 +68,8 @@ export const availabilitySchema = z.object({
 
 export const shipSchema = z.object({
   commissionId: id("commission"),
-  carrier: z.string().trim().min(2, "Name the carrier (or “hand-over in person”).").max(80),
-  tracking: z.string().trim().min(1, "Enter the tracking number (or “none”).").max(80),
+  carrier: safeString().trim().min(2, "Name the carrier (or “hand-over in person”).").max(80),
+  tracking: safeString().trim().min(1, "Enter the tracking number (or “none”).").max(80),
 });
 
 /** A piece's labour features, corrected by the maker after set-up (the name stays the piece's). */

@@ -1,9 +1,10 @@
 // Proofs: sending one, approving it, asking for changes with comments pinned to stitches.
 import { z } from "zod";
+import { safeString } from "./common";
 
 export const sendProofSchema = z.object({
   commissionId: z.string().uuid(),
-  note: z.string().trim().max(1000, "Keep the note to 1000 characters.").default(""),
+  note: safeString().trim().max(1000, "Keep the note to 1000 characters.").default(""),
 });
 
 export const approveProofSchema = z.object({
@@ -18,7 +19,7 @@ export const pinnedCommentSchema = z.object({
   /** trade numbering: row from the bottom, stitch from the right, both from 1 */
   row: z.number().int().min(1).max(400),
   stitch: z.number().int().min(1).max(400),
-  body: z.string().trim().min(1, "Write what you would like changed here.").max(500, "Keep each comment to 500 characters."),
+  body: safeString().trim().min(1, "Write what you would like changed here.").max(500, "Keep each comment to 500 characters."),
 });
 export type PinnedComment = z.infer<typeof pinnedCommentSchema>;
 
@@ -26,7 +27,7 @@ export const requestChangesSchema = z
   .object({
     proofId: z.string().uuid(),
     contentHash: z.string().regex(/^[0-9a-f]{64}$/, "Reload the proof and try again."),
-    note: z.string().trim().max(2000, "Keep the note to 2000 characters.").default(""),
+    note: safeString().trim().max(2000, "Keep the note to 2000 characters.").default(""),
     comments: z
       .string()
       .default("[]")

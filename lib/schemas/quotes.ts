@@ -1,12 +1,13 @@
 // Quote drafts (the builder's JSON body), acceptance and change requests from the portal.
 import { z } from "zod";
+import { calendarDate, safeString } from "./common";
 
 const count = (max = 1_000_000) => z.number({ error: "Enter a number." }).finite().min(0, "Use 0 or more.").max(max, `At most ${max}.`);
 const minor = z.number({ error: "Enter an amount." }).int("Whole minor units only.").min(0, "Use 0 or more.").max(100_000_000, "That amount is too large.");
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Use a date like 2027-01-31.");
+const isoDate = calendarDate("Use a date like 2027-01-31.");
 
 export const pieceFeaturesSchema = z.object({
-  label: z.string().trim().min(1, "Name the piece.").max(80),
+  label: safeString().trim().min(1, "Name the piece.").max(80),
   newDesign: z.boolean().default(true),
   proofRounds: count(20).default(1),
   plainStitches: count().default(0),
@@ -25,7 +26,7 @@ export const quoteDraftSchema = z.object({
   materials: z
     .array(z.object({ yarnId: z.string().uuid("Choose a yarn."), skeins: z.number().int("Whole skeins.").min(0).max(200) }))
     .max(16),
-  extras: z.array(z.object({ label: z.string().trim().min(1, "Name the extra.").max(80), amountMinor: minor })).max(10).default([]),
+  extras: z.array(z.object({ label: safeString().trim().min(1, "Name the extra.").max(80), amountMinor: minor })).max(10).default([]),
   designFeeMinor: minor.default(0),
   shippingMinor: minor.default(0),
   discountMinor: minor.default(0),
@@ -33,7 +34,7 @@ export const quoteDraftSchema = z.object({
   earliestDate: isoDate.nullable().optional(),
   rushFeeMinor: minor.nullable().optional(),
   validUntil: isoDate.nullable().optional(),
-  messageToClient: z.string().trim().max(2000).default(""),
+  messageToClient: safeString().trim().max(2000).default(""),
 });
 
 export type QuoteDraftInput = z.input<typeof quoteDraftSchema>;
@@ -41,11 +42,11 @@ export type QuoteDraftBody = z.output<typeof quoteDraftSchema>;
 
 export const acceptQuoteSchema = z.object({
   quoteId: z.string().uuid(),
-  name: z.string().trim().min(2, "Type your full name to accept.").max(120),
+  name: safeString().trim().min(2, "Type your full name to accept.").max(120),
   agree: z.literal("on", { error: "Tick the box to accept the quote and its terms." }),
 });
 
 export const requestQuoteChangesSchema = z.object({
   quoteId: z.string().uuid(),
-  changes: z.string().trim().min(5, "Tell the studio what you would like changed.").max(2000),
+  changes: safeString().trim().min(5, "Tell the studio what you would like changed.").max(2000),
 });

@@ -2,6 +2,7 @@
 // Measurements are typed in cm or inches; the output holds centimetres, checked against the human
 // ranges of lib/core/sizing (with a hint when the number fits the other unit).
 import { z } from "zod";
+import { isCalendarDate, safeString } from "./common";
 import { MOTIFS } from "@/lib/core/chart/motifs";
 import { MEASUREMENT_SPECS, type MeasurementName } from "@/lib/core/sizing/measurements";
 import { CM_PER_IN, inToCm, roundTo } from "@/lib/core/sizing/units";
@@ -56,7 +57,7 @@ export function readRequestMeasurement(name: MeasurementName, raw: string, units
   return { error: `A ${spec.noun} usually measures ${range} (${spec.how}).${hint}` };
 }
 
-const text = (max: number, what: string) => z.string().trim().max(max, `Keep the ${what} to ${max} characters or fewer.`);
+const text = (max: number, what: string) => safeString().trim().max(max, `Keep the ${what} to ${max} characters or fewer.`);
 
 /** The raw form values (all strings and lists), as the browser keeps them; also the draft's shape. */
 export const requestFields = z.object({
@@ -64,18 +65,16 @@ export const requestFields = z.object({
   wearer: z.enum(WEARERS, { error: "Tell us who it is for." }),
   units: z.enum(["cm", "in"]),
   sizeLabel: text(60, "size"),
-  measurements: z.record(z.string(), z.string().max(12)),
+  measurements: z.record(safeString().max(60), safeString().max(12)).refine((m) => Object.keys(m).length <= 12, "Too many measurements."),
   yarnIds: z.array(z.string().uuid()).max(8, "Choose at most 8 colours."),
   colourNotes: text(300, "colour wishes"),
   lettering: text(24, "initials or name").regex(/^[\p{L}\p{N} .·&'-]*$/u, "Use letters, numbers, spaces and . · & ' - only."),
-  motifIds: z.array(z.string()).max(4, "Choose at most 4 motifs.").refine((ids) => ids.every((id) => MOTIF_IDS.has(id)), "Choose motifs from the list."),
-  neededBy: z
-    .string()
+  motifIds: z.array(z.string().max(60)).max(4, "Choose at most 4 motifs.").refine((ids) => ids.every((id) => MOTIF_IDS.has(id)), "Choose motifs from the list."),
+  neededBy: safeString()
     .trim()
-    .refine((v) => v === "" || /^\d{4}-\d{2}-\d{2}$/.test(v), "Enter a date, or leave it empty.")
+    .refine((v) => v === "" || isCalendarDate(v), "Enter a date that exists (like 2027-01-31), or leave it empty.")
     .refine((v) => v === "" || v > today(), "Choose a date after today."),
-  budget: z
-    .string()
+  budget: safeString()
     .trim()
     .refine((v) => v === "" || /^\d{1,7}([.]\d{1,2})?$/.test(v.replace(/,/g, "")), "Enter an amount like 120 or 120.50, or leave it empty."),
   notes: text(2000, "notes"),

@@ -1,12 +1,12 @@
 // The studio settings form (owner): typed text in, validated settings out. Shared by the form
 // (react-hook-form + zod in the browser) and its server action.
 import { z } from "zod";
+import { safeString } from "./common";
 import { RATE_KEYS } from "@/lib/core/labour/default-rates";
 import { majorToMinor } from "./money";
 
 const num = (min: number, max: number, msg: string) =>
-  z
-    .string()
+  safeString()
     .trim()
     .min(1, "Enter a number.")
     .refine((v) => /^\d+(\.\d+)?$/.test(v) && Number(v) >= min && Number(v) <= max, msg)
@@ -18,8 +18,7 @@ const rateFields = Object.fromEntries(
 
 export function settingsFormSchema(currency: string) {
   const money = (label: string) =>
-    z
-      .string()
+    safeString()
       .trim()
       .min(1, `Enter the ${label}.`)
       .transform((v, ctx) => {

@@ -2,6 +2,7 @@
 // sizing core's input built from it, and the core's messages put back on the field they are about.
 // Shared by the form (live results in the browser), the route that saves it and the server readers.
 import { z } from "zod";
+import { safeString } from "./common";
 import { EASE_CATEGORIES, GARMENT_FIELDS, SizingError, sizeGarment, type SizeGarmentInput, type SizingResult } from "@/lib/core/sizing";
 import type { GarmentKind } from "@/lib/core/sizing";
 
@@ -9,22 +10,22 @@ const EASE_KEYS = EASE_CATEGORIES.categories.map((c) => c.key) as [string, ...st
 
 export const sizingFormSchema = z.strictObject({
   /** a standard size key, or "" for the measurements alone */
-  size: z.string().max(40),
+  size: safeString().max(40),
   unit: z.enum(["cm", "in"]),
   /** body measurements and garment lengths, by name without unit, as typed */
   lengths: z
-    .record(z.string().max(40), z.string().max(20))
+    .record(safeString().max(40), safeString().max(20))
     .refine((r) => Object.keys(r).length <= 20, { error: "Too many lengths." }),
   easeMode: z.enum(["default", "category", "value"]),
   easeCategory: z.enum(EASE_KEYS),
   /** in `unit`, negative for a smaller garment */
-  ease: z.string().max(20),
+  ease: safeString().max(20),
   gaugeOver: z.enum(["10cm", "4in"]),
-  stitches: z.string().max(20),
-  rows: z.string().max(20),
+  stitches: safeString().max(20),
+  rows: safeString().max(20),
   /** Standard Yarn Weight System category, or "" */
-  yarnCategory: z.string().max(2),
-  repeat: z.string().max(20),
+  yarnCategory: safeString().max(2),
+  repeat: safeString().max(20),
   thumb: z.enum(["gusset", "afterthought"]),
   /** pullovers: yoke | bands; hats: beanie | folded-brim | tall (a hat form saved before hat styles says "yoke": a beanie) */
   style: z.enum(["yoke", "bands", "beanie", "folded-brim", "tall"]),

@@ -1,5 +1,6 @@
 // Zod schemas for the studio's yarn records and dye lots, shared by the forms and the routes.
 import { z } from "zod";
+import { safeString } from "./common";
 import { majorToMinor } from "./money";
 
 const positiveInt = (what: string, max: number) =>
@@ -10,10 +11,10 @@ const positiveInt = (what: string, max: number) =>
     .max(max, `That is more than ${max}; check the unit.`);
 
 export const yarnFields = {
-  name: z.string().trim().min(1, "Name the yarn.").max(80),
-  colourName: z.string().trim().min(1, "Name the colour.").max(60),
-  hex: z.string().trim().regex(/^#[0-9A-Fa-f]{6}$/, "A colour like #A3342A."),
-  fibre: z.string().trim().min(2, "Give the fibre, e.g. “Wool (100 %)”.").max(120),
+  name: safeString().trim().min(1, "Name the yarn.").max(80),
+  colourName: safeString().trim().min(1, "Name the colour.").max(60),
+  hex: safeString().trim().regex(/^#[0-9A-Fa-f]{6}$/, "A colour like #A3342A."),
+  fibre: safeString().trim().min(2, "Give the fibre, e.g. “Wool (100 %)”.").max(120),
   weightCategory: z.coerce.number().int().min(0, "Category 0–7.").max(7, "Category 0–7."),
   metresPerSkein: positiveInt("metres per skein", 5000),
   gramsPerSkein: positiveInt("grams per skein", 1000),
@@ -21,8 +22,7 @@ export const yarnFields = {
 
 /** The price is typed in the studio's currency ("8.50") and stored in minor units. */
 export const priceField = (currency: string) =>
-  z
-    .string()
+  safeString()
     .trim()
     .min(1, "Enter the price per skein.")
     .transform((v, ctx) => {
@@ -34,13 +34,13 @@ export const priceField = (currency: string) =>
       return minor;
     });
 
-export const yarnFormSchema = z.object({ ...yarnFields, price: z.string().trim().min(1, "Enter the price per skein.") });
+export const yarnFormSchema = z.object({ ...yarnFields, price: safeString().trim().min(1, "Enter the price per skein.") });
 export type YarnFormInput = z.input<typeof yarnFormSchema>;
 
 export const yarnBodySchema = (currency: string) => z.object({ ...yarnFields, price: priceField(currency) });
 
 export const lotSchema = z.object({
-  lotCode: z.string().trim().min(1, "Enter the dye lot code.").max(40),
+  lotCode: safeString().trim().min(1, "Enter the dye lot code.").max(40),
   stockSkeins: z.coerce.number({ message: "Enter the skeins in stock." }).int("Whole skeins.").min(0, "Stock cannot be negative.").max(10_000),
 });
 export type LotInput = z.input<typeof lotSchema>;

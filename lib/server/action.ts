@@ -7,6 +7,7 @@ import { requireActor, type Actor } from "./authz";
 import type { ActionState } from "@/lib/action-state";
 import { busyError } from "./db-busy";
 import { AppError, fieldErrorsOf } from "./errors";
+import { assertSafeForm, dataExceptionAsInputError } from "./input-guard";
 
 export type { ActionState };
 
@@ -22,6 +23,9 @@ export function toErrorState(err: unknown, values?: Record<string, string>): Act
   if (err instanceof AppError) {
     return { status: "error", message: err.message, fieldErrors: err.fieldErrors, values };
   }
+  if (err instanceof z.ZodError) return toErrorState(new AppError(422, "invalid_input", "Some fields need attention.", fieldErrorsOf(err)), values);
+  const input = dataExceptionAsInputError(err);
+  if (input) return toErrorState(input, values);
   console.error(err);
   return { status: "error", message: "Something went wrong on our side. Nothing was saved; please try again.", values };
 }
@@ -32,9 +36,16 @@ export function formAction<S extends z.ZodType, T>(
   run: (input: z.output<S>, actor: Actor) => Promise<T>,
   opts: { message?: string } = {},
 ) {
-  return async (_prev: ActionState<T>, form: FormData): Promise<ActionState<T>> => {
-    const values = echo(form);
+  const act = async (...args: unknown[]): Promise<ActionState<T>> => {
+    // Called as (previous state, FormData) by useActionState; anything else is refused, not thrown.
+    const [prev, form] = args;
+    if (args.length !== 2 || (prev !== null && prev !== undefined && typeof prev !== "object") || !(form instanceof FormData)) {
+      return { status: "error", message: "This form was sent in a shape we do not accept. Reload the page and try again." };
+    }
+    let values: Record<string, string> | undefined;
     try {
+      assertSafeForm(form);
+      values = echo(form);
       const actor = await requireActor();
       const parsed = schema.safeParse(Object.fromEntries(form.entries()));
       if (!parsed.success) {
@@ -47,4 +58,6 @@ export function formAction<S extends z.ZodType, T>(
       return toErrorState(err, values);
     }
   };
+  // The schema travels with the action so the fuzz test can generate forms from it.
+  return Object.assign(act, { schema });
 }

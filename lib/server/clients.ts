@@ -4,8 +4,11 @@ import { db } from "@/db";
 import { studioClients, studios } from "@/db/schema";
 import type { Actor } from "./authz";
 import { notFound } from "./errors";
+import { studioSlugSchema } from "@/lib/schemas/common";
 
 export async function getStudioBySlug(slug: string) {
+  // A value that cannot be a slug names no studio (and never reaches the database).
+  if (!studioSlugSchema.safeParse(slug).success) return null;
   const [studio] = await db.select().from(studios).where(eq(studios.slug, slug));
   return studio ?? null;
 }

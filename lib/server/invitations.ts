@@ -49,6 +49,7 @@ export type InvitationLookup =
   | { status: "unknown" | "used" | "expired"; message: string };
 
 export async function lookupInvitation(token: string): Promise<InvitationLookup> {
+  if (typeof token !== "string" || token.length > 200) return { status: "unknown", message: "This invitation link is not valid. Check that you copied all of it." };
   const [row] = await db
     .select({ inv: studioInvitations, studioName: studios.name })
     .from(studioInvitations)

@@ -5,6 +5,7 @@ import { z } from "zod";
 import { requireActor, type Actor } from "./authz";
 import { BUSY_RETRY_AFTER_SECONDS, busyError } from "./db-busy";
 import { AppError, validationError } from "./errors";
+import { assertSafeInput, dataExceptionAsInputError, readJsonBody } from "./input-guard";
 import { refuseCrossSite } from "./request-guard";
 
 type Ctx<P, B, Q> = { req: Request; actor: Actor; params: P; body: B; query: Q };
@@ -26,6 +27,8 @@ export function errorResponse(err: unknown): Response {
     );
   }
   if (err instanceof z.ZodError) return errorResponse(validationError(err));
+  const input = dataExceptionAsInputError(err);
+  if (input) return errorResponse(input);
   console.error(err);
   return Response.json(
     { error: { code: "internal", message: "Something went wrong on our side. Please try again." } },
@@ -41,24 +44,22 @@ export function route<
   spec: RouteSpec<P, B, Q>,
   handler: (ctx: Ctx<z.output<P>, z.output<B>, z.output<Q>>) => Promise<unknown>,
 ) {
-  return async (req: Request, context: { params: Promise<Record<string, string | string[]>> }) => {
+  const handle = async (req: Request, context: { params: Promise<Record<string, string | string[]>> }) => {
     const refused = refuseCrossSite(req, { jsonBody: Boolean(spec.body) });
     if (refused) return refused;
     try {
       const actor = await requireActor(req.headers);
       const rawParams = context?.params ? await context.params : {};
+      const rawQuery = Object.fromEntries(new URL(req.url).searchParams);
+      assertSafeInput(rawParams, "address");
+      assertSafeInput(rawQuery, "query");
       const params = spec.params ? spec.params.parse(rawParams) : rawParams;
-      const query = spec.query
-        ? spec.query.parse(Object.fromEntries(new URL(req.url).searchParams))
-        : Object.fromEntries(new URL(req.url).searchParams);
+      const query = spec.query ? spec.query.parse(rawQuery) : rawQuery;
       let body: unknown = undefined;
       if (spec.body) {
-        let raw: unknown;
-        try {
-          raw = await req.json();
-        } catch {
-          throw new AppError(400, "bad_json", "The request body is not valid JSON.");
-        }
+        // Limit (413), content type (415), UTF-8 and JSON (400) while reading; depth and text before zod.
+        const raw = await readJsonBody(req);
+        assertSafeInput(raw);
         body = spec.body.parse(raw);
       }
       const result = await handler({
@@ -73,4 +74,6 @@ export function route<
       return errorResponse(err);
     }
   };
+  // The spec travels with the handler so the fuzz test can generate inputs from its schemas.
+  return Object.assign(handle, { spec });
 }

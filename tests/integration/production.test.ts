@@ -180,7 +180,7 @@ describe("timers and time entries", () => {
     const neg = await call(postEntry, jars.assistant, "/api/production/entries", "POST", "", entry({ minutes: -30, startTime: "14:00" }));
     expect(neg.status).toBe(422);
     expect(neg.body.error.fieldErrors.minutes[0]).toMatch(/1 or more/);
-    const future = await call(postEntry, jars.assistant, "/api/production/entries", "POST", "", entry({ date: "2999-01-01" }));
+    const future = await call(postEntry, jars.assistant, "/api/production/entries", "POST", "", entry({ date: new Date(Date.now() + 30 * 86_400_000).toISOString().slice(0, 10) }));
     expect(future.status).toBe(422);
     expect(future.body.error.message).toMatch(/future/);
     const overlap = await call(postEntry, jars.assistant, "/api/production/entries", "POST", "", entry({ startTime: "10:30" }));

@@ -8,9 +8,24 @@ import { env } from "@/lib/env";
 import { toErrorState } from "@/lib/server/action";
 import { getActor, requireActor } from "@/lib/server/authz";
 import { getStudioBySlug } from "@/lib/server/clients";
-import { notFound, validationError } from "@/lib/server/errors";
+import { AppError, notFound, validationError } from "@/lib/server/errors";
+import { assertSafeInput } from "@/lib/server/input-guard";
 import { createCommissionFromRequest, draftCookieName, loadDraft, newDraftToken, saveDraft } from "@/lib/server/requests";
+import { studioSlugSchema } from "@/lib/schemas/common";
 import { requestSchema } from "@/lib/schemas/request";
+
+// These actions are called from the browser with (slug, values): any other shape is refused as a state, never thrown.
+const badShape = () => new AppError(400, "bad_request", "This form was sent in a shape we do not accept. Reload the page and try again.");
+
+function readArgs(args: unknown[], withValues: boolean): { slug: string; values: Record<string, unknown> } {
+  if (args.length !== (withValues ? 2 : 1)) throw badShape();
+  const slug = studioSlugSchema.safeParse(args[0]);
+  if (!slug.success) throw notFound("That studio");
+  const values = withValues ? args[1] : {};
+  if (values === null || typeof values !== "object" || Array.isArray(values)) throw badShape();
+  assertSafeInput(values);
+  return { slug: slug.data, values: values as Record<string, unknown> };
+}
 
 async function studioAndToken(slug: string, create: boolean) {
   const studio = await getStudioBySlug(slug);
@@ -31,17 +46,23 @@ async function studioAndToken(slug: string, create: boolean) {
 }
 
 /** Makes sure this browser has a draft token for the studio (before the first save or photo). */
-export async function ensureRequestDraft(slug: string): Promise<{ ok: true }> {
-  await studioAndToken(slug, true);
-  return { ok: true };
+export async function ensureRequestDraft(...args: unknown[]): Promise<ActionState<{ ok: true }>> {
+  try {
+    const { slug } = readArgs(args, false);
+    await studioAndToken(slug, true);
+    return { status: "ok", data: { ok: true } };
+  } catch (err) {
+    return toErrorState(err);
+  }
 }
 
-export async function saveRequestDraft(slug: string, values: unknown): Promise<ActionState<{ savedAt: string }>> {
+export async function saveRequestDraft(...args: unknown[]): Promise<ActionState<{ savedAt: string }>> {
   try {
+    const { slug, values } = readArgs(args, true);
     const { studio, token } = await studioAndToken(slug, true);
     const actor = await getActor();
     const previous = await loadDraft(studio.id, token);
-    const data = { ...(values as Record<string, unknown>), submitted: previous?.data.submitted ?? false };
+    const data = { ...values, submitted: previous?.data.submitted ?? false };
     await saveDraft(studio.id, token!, data, actor?.userId ?? null);
     return { status: "ok", data: { savedAt: new Date().toISOString() } };
   } catch (err) {
@@ -50,20 +71,22 @@ export async function saveRequestDraft(slug: string, values: unknown): Promise<A
 }
 
 /** Signed out: the request is complete and kept as "sent"; it is created when the account is confirmed. */
-export async function holdRequestForSignUp(slug: string, values: unknown): Promise<ActionState<{ held: true }>> {
+export async function holdRequestForSignUp(...args: unknown[]): Promise<ActionState<{ held: true }>> {
   try {
+    const { slug, values } = readArgs(args, true);
     const parsed = requestSchema.safeParse(values);
     if (!parsed.success) throw validationError(parsed.error);
     const { studio, token } = await studioAndToken(slug, true);
-    await saveDraft(studio.id, token!, { ...(values as Record<string, unknown>), submitted: true }, null);
+    await saveDraft(studio.id, token!, { ...values, submitted: true }, null);
     return { status: "ok", data: { held: true } };
   } catch (err) {
     return toErrorState(err);
   }
 }
 
-export async function submitRequest(slug: string, values: unknown): Promise<ActionState<{ id: string; number: number }>> {
+export async function submitRequest(...args: unknown[]): Promise<ActionState<{ id: string; number: number }>> {
   try {
+    const { slug, values } = readArgs(args, true);
     const actor = await requireActor();
     const { studio, token } = await studioAndToken(slug, false);
     const draft = await loadDraft(studio.id, token);

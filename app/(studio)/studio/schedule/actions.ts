@@ -17,7 +17,7 @@ const hours = z
 const formSchema = z.object({
   memberId: z.string().uuid(),
   studioId: z.string().uuid(),
-  daysOff: z.string().default(""),
+  daysOff: z.string().max(4000, "List at most a year of days off.").default(""),
   mon: hours,
   tue: hours,
   wed: hours,

@@ -1,5 +1,7 @@
 import { CLIENT_ADDRESS_HEADER, requestClientAddress } from "@/lib/server/client-address";
 import { getAuth } from "@/lib/server/auth";
+import { guardAuthRequest } from "@/lib/server/input-guard";
+import { errorResponse } from "@/lib/server/route";
 
 export const dynamic = "force-dynamic";
 
@@ -11,10 +13,19 @@ function withClientAddress(req: Request): Request {
   return new Request(req, { headers });
 }
 
-export function GET(req: Request) {
-  return getAuth().handler(withClientAddress(req));
+// Input is checked before better-auth sees it (size, JSON, storable text, same-origin callbacks).
+export async function GET(req: Request) {
+  try {
+    return await getAuth().handler(withClientAddress(await guardAuthRequest(req)));
+  } catch (err) {
+    return errorResponse(err);
+  }
 }
 
-export function POST(req: Request) {
-  return getAuth().handler(withClientAddress(req));
+export async function POST(req: Request) {
+  try {
+    return await getAuth().handler(withClientAddress(await guardAuthRequest(req)));
+  } catch (err) {
+    return errorResponse(err);
+  }
 }
