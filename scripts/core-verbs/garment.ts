@@ -6,7 +6,10 @@ import { buildGarment, garmentFeatures, placeCharts, readGarmentInput } from "@/
 export function run(input: unknown): unknown {
   const parsed = readGarmentInput(input);
   const garment = buildGarment(parsed.size);
-  const placed = placeCharts(garment, parsed.placements, parsed.place);
+  // A chart is drawn over its area's whole rectangle; cells the shape does not knit (above the
+  // decreases, outside a crown sector) are marked in notKnitted and never counted. The editor and a
+  // saved design refuse such paint instead (placeCharts' default).
+  const placed = placeCharts(garment, parsed.placements, { ...parsed.place, outsideShape: "ignore" });
   const reading = garmentFeatures(placed, parsed.features);
   return {
     garment: garment.kind,
@@ -14,5 +17,6 @@ export function run(input: unknown): unknown {
     rounds: reading.rounds,
     yarn: reading.yarn,
     labour: reading.labour,
+    notKnitted: placed.notKnitted,
   };
 }

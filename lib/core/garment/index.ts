@@ -19,6 +19,7 @@ export type {
   Narrowing,
   PieceReading,
   PlacedGarment,
+  NotKnittedCells,
   PlaceOptions,
   RoundPinInput,
   RoundReading,

@@ -6,7 +6,7 @@ import { LetteringError } from "../chart/lettering/letter";
 import { findChartArea, inShapeColumns } from "./build-garment";
 import { GarmentError } from "./garment-error";
 import { mirrorWithLettering, readLettering } from "./lettering-check";
-import type { ChartPlacement, Garment, GarmentPiece, PlacedGarment, PlaceOptions } from "./types";
+import type { ChartPlacement, Garment, GarmentPiece, NotKnittedCells, PlacedGarment, PlaceOptions } from "./types";
 
 /** The main colour when no chart is placed: the plain garment. */
 export const PLAIN_MAIN_COLOUR: PaletteColour = { key: "A", name: "Main colour", hex: "#D9CFBF" };
@@ -82,8 +82,8 @@ function chooseCharts(garment: Garment, placements: ChartPlacement[]): Map<strin
   return chosen;
 }
 
-/** Refuses paint in cells the shape does not knit (above decreases, outside a sector's narrowing). */
-function checkOutsideShape(garment: Garment, p: ChartPlacement, i: number): void {
+/** Paint in cells the shape does not knit (above decreases, outside a sector's narrowing): refused, or marked. */
+function checkOutsideShape(garment: Garment, p: ChartPlacement, i: number, mode: "refuse" | "ignore"): NotKnittedCells | null {
   const piece = garment.pieces.find((g) => g.areas.some((a) => a.name === p.area && a.charted))!;
   const area = piece.areas.find((a) => a.name === p.area && a.charted)!;
   const { chart } = p;
@@ -98,15 +98,18 @@ function checkOutsideShape(garment: Garment, p: ChartPlacement, i: number): void
       else more += 1;
     }
   }
-  if (first) {
-    const why =
-      area.narrowing === "sector end" ? "outside the sector's narrowing" : area.narrowing === "edges" ? "beyond the decreases at the top" : "on a stitch decreased away";
-    const key = chart.palette[chart.cells[first.y * chart.width + first.x]].key;
-    throw new GarmentError(
-      `charts[${i}].chart`,
-      `${p.area}: ${at(chart, first.x, first.y)} (row from the bottom, stitch from the right) is painted '${key}' but lies outside the shape, ${why}; only row ${first.y + 1}'s ${area.rowStitches[first.y]} stitches are knitted${more > 0 ? ` (${more} more cells like it)` : ""}`,
-    );
+  if (!first) return null;
+  const why =
+    area.narrowing === "sector end" ? "outside the sector's narrowing" : area.narrowing === "edges" ? "beyond the decreases at the top" : "on a stitch decreased away";
+  const key = chart.palette[chart.cells[first.y * chart.width + first.x]].key;
+  const place = `${at(chart, first.x, first.y)} (row from the bottom, stitch from the right)`;
+  if (mode === "ignore") {
+    return { area: p.area, chartIndex: i, cells: more + 1, first: `${p.area}: ${place} is painted '${key}' but lies outside the shape, ${why}: not knitted, not counted` };
   }
+  throw new GarmentError(
+    `charts[${i}].chart`,
+    `${p.area}: ${place} is painted '${key}' but lies outside the shape, ${why}; only row ${first.y + 1}'s ${area.rowStitches[first.y]} stitches are knitted${more > 0 ? ` (${more} more cells like it)` : ""}`,
+  );
 }
 
 function checkLettering(p: ChartPlacement, chart: Chart, i: number, pieceName: string): void {
@@ -131,8 +134,10 @@ function checkLettering(p: ChartPlacement, chart: Chart, i: number, pieceName: s
 
 export function placeCharts(garment: Garment, placements: ChartPlacement[], opts: PlaceOptions = {}): PlacedGarment {
   const chosen = chooseCharts(garment, placements);
+  const notKnitted: NotKnittedCells[] = [];
   placements.forEach((p, i) => {
-    checkOutsideShape(garment, p, i);
+    const outside = checkOutsideShape(garment, p, i, opts.outsideShape ?? "refuse");
+    if (outside) notKnitted.push(outside);
     // every layer as given: inside the chart, and set in it reading forwards
     const first = p.piece ?? garment.pieces.find((g) => g.areas.some((a) => a.name === p.area && a.charted))!.name;
     checkLettering(p, p.chart, i, first);
@@ -208,7 +213,7 @@ export function placeCharts(garment: Garment, placements: ChartPlacement[], opts
     if (pin.pair[0] === pin.pair[1]) throw new GarmentError(`${field}.pair`, "must name two different colours");
     return { ...pin, pair: [pin.pair[0], pin.pair[1]] as [string, string] };
   });
-  const result: PlacedGarment = { garment, palette, darn, pins, colours, placed };
+  const result: PlacedGarment = { garment, palette, darn, pins, colours, placed, notKnitted };
   checkThreeColours(result);
   return result;
 }

@@ -107,6 +107,22 @@ export interface PlaceOptions {
   darn?: string[];
   /** the maker's pairs for ranges of rounds; a pinned round may hold three colours (the rest are darned) */
   pins?: RoundPinInput[];
+  /**
+   * Paint in cells the shape does not knit: "refuse" (the default: the editor and a saved design must
+   * not lose paint) or "ignore" (the cells are marked in `notKnitted` and never counted: a chart drawn
+   * over the whole rectangle of an area, as the core CLI accepts it).
+   */
+  outsideShape?: "refuse" | "ignore";
+}
+
+/** Cells of a placed chart that lie outside its area's shape and hold paint (never knitted, never counted). */
+export interface NotKnittedCells {
+  area: string;
+  chartIndex: number;
+  /** painted cells outside the shape (any colour but the chart's first) */
+  cells: number;
+  /** the first of them, as a knitter reads it */
+  first: string;
 }
 
 /** Two colours the maker wants knitted in a range of rounds of one part. */
@@ -137,6 +153,8 @@ export interface PlacedGarment {
   colours: Uint8Array[][][];
   /** which charts went where, for messages and rendering */
   placed: { piece: string; area: string; chartIndex: number; mirrored: boolean }[];
+  /** paint outside the shape that was left out (only with outsideShape: "ignore") */
+  notKnitted: NotKnittedCells[];
 }
 
 export interface FeatureOptions {

@@ -63,20 +63,52 @@ describe("garment verb: bad input", () => {
     expect(() => run(input)).toThrow(message);
   });
 
-  test("paint above the top decreases names the row from the bottom and the stitch from the right", () => {
+  // The app refuses paint the shape does not knit (placeCharts' default), naming the place; the verb
+  // takes a chart drawn over the area's whole rectangle, marks such cells and never counts them.
+  const refuseOrMark = (input: { size: unknown; charts: unknown[] }) => {
+    const parsed = readGarmentInput(input);
+    return () => placeCharts(buildGarment(parsed.size), parsed.placements, parsed.place);
+  };
+
+  test("paint above the top decreases: refused by default, naming the row from the bottom and the stitch from the right", () => {
     // row 52 keeps 4 of 23 sts (stitches 10–13 from the right); stitch 1 from the right is outside
     const chart = chartV1(back, (x, y) => (y === 51 && x === 22 ? "B" : "A"), sizing);
-    expect(() => run({ size, charts: [{ area: "back of hand", chart }] })).toThrow(
+    expect(refuseOrMark({ size, charts: [{ area: "back of hand", chart }] })).toThrow(
       /charts\[0\]\.chart: back of hand: row 52, stitch 1 \(row from the bottom, stitch from the right\) is painted 'B' but lies outside the shape/,
     );
+    const out = run({ size, charts: [{ area: "back of hand", chart }] }) as VerbOutput & { notKnitted: { area: string; cells: number; first: string }[] };
+    expect(out.notKnitted).toEqual([{ area: "back of hand", chartIndex: 0, cells: 1, first: expect.stringMatching(/^back of hand: row 52, stitch 1 .* not knitted, not counted$/) }]);
+    // nothing outside the shape is knitted: the lone 'B' adds no stitch and no colour to any round
+    expect(out.pieces.every((p) => p.features.strandedStitches === 0)).toBe(true);
+    expect(out.pieces.reduce((s, p) => s + p.stitches * p.quantity, 0)).toBe(sizeTotal(sizing));
   });
 
-  test("paint outside a crown sector's narrowing is refused", () => {
+  test("paint outside a crown sector's narrowing: refused by default, marked and not counted by the verb", () => {
     const hatSize = { garment: "hat", size: "woman", gauge: { stitchesPer10cm: 22, rowsPer10cm: 30 } };
     const hat = sizeGarment(hatSize);
     // row 20 keeps 1 stitch of the 14-st sector (stitch 1 from the right); stitch 14 is gone
     const chart = chartV1(area(hat, "crown"), (x, y) => (y === 19 && x === 0 ? "B" : "A"), hat);
-    expect(() => run({ size: hatSize, charts: [{ area: "crown", chart }] })).toThrow(/crown: row 20, stitch 14 .* outside the shape, outside the sector's narrowing/);
+    expect(refuseOrMark({ size: hatSize, charts: [{ area: "crown", chart }] })).toThrow(/crown: row 20, stitch 14 .* outside the shape, outside the sector's narrowing/);
+    const out = run({ size: hatSize, charts: [{ area: "crown", chart }] }) as VerbOutput & { notKnitted: { cells: number }[] };
+    expect(out.notKnitted.map((n) => n.cells)).toEqual([1]);
+    expect(out.pieces[0].features.strandedStitches).toBe(0);
+  });
+
+  test("a two-colour chart drawn over the crown's whole rectangle adds only the sector's real stitches, every sector", () => {
+    const hatSize = { garment: "hat", size: "woman", gauge: { stitchesPer10cm: 22, rowsPer10cm: 30 } };
+    const hat = sizeGarment(hatSize);
+    const crown = area(hat, "crown");
+    // 'A'/'B' in alternate columns on every row; rows whose sector keeps one stitch knit one colour.
+    const chart = chartV1(crown, (x) => (x % 2 ? "B" : "A"), hat);
+    const out = run({ size: hatSize, charts: [{ area: "crown", chart }] }) as VerbOutput & { notKnitted: { cells: number }[] };
+    // Worked in worked-garments.test.ts: the sector's rows keep 13,13,12,12,…,7,7,6,5,4,3,2,1 stitches,
+    // 1,288 in the 8 sectors; every row but the last holds both columns' parities, so 1,288 − 8 = 1,280.
+    expect(crown.repeats).toBe(8);
+    expect(out.pieces[0].features.strandedStitches).toBe(1280);
+    // Outside the shape: the first 14 − k columns of a row keeping k, i.e. 1,1,2,2,…,7,7,8,…,13 cells
+    // (119 in all); 'B' on the odd columns of each: ⌊n/2⌋ = 0,0,1,1,1,1,2,2,2,2,3,3,3,3,4,4,5,5,6,6 = 54.
+    expect(out.notKnitted[0].cells).toBe(54);
+    expect(out.pieces[0].stitches).toBe(sizeTotal(hat));
   });
 
   test("three colours in one round with nothing darned names the round, the piece and the place", () => {
