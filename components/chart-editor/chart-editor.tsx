@@ -37,8 +37,8 @@ import {
 } from "@/lib/core/chart";
 import { Button } from "@/components/ui/button";
 import type { ChartArea, SizingResult } from "@/lib/core/sizing";
-import type { RoundReading } from "@/lib/core/garment";
-import { areaShapeMask, hasOutsideCells, matchArea, outsideMessage } from "@/lib/core/design-garment";
+import type { RoundPinInput, RoundReading } from "@/lib/core/garment";
+import { areaShapeMask, chartDarn, hasOutsideCells, matchArea, outsideMessage, storedPins } from "@/lib/core/design-garment";
 import { Notice } from "@/components/ui/notice";
 import { ChartCanvas, type CellMark } from "./chart-canvas";
 import {
@@ -207,6 +207,26 @@ export function ChartEditor(props: ChartEditorProps) {
 
   const counts = useMemo(() => getStitchCounts(present), [present]);
   const priceCharts = useMemo(() => entries.map((e) => ({ area: e.area, label: e.label, chart: e.history.present, options: e.options })), [entries]);
+  // Pinned pairs live in the first chart's options (the garment reads every chart's pins) and are
+  // saved with the version like any edit.
+  const firstEntry = entries[0];
+  const pins = useMemo(() => storedPins(firstEntry?.options?.pins), [firstEntry]);
+  const setPins = useCallback(
+    (next: RoundPinInput[]) => {
+      if (readOnly) return;
+      setEntries((all) =>
+        all.map((e, i) => {
+          if (i !== 0) return e;
+          const { pins: _old, ...rest } = e.options ?? {};
+          void _old;
+          return { ...e, options: next.length ? { ...rest, pins: next } : rest };
+        }),
+      );
+      setRevision((r) => r + 1);
+    },
+    [readOnly],
+  );
+  const pinDarn = useCallback(() => [...new Set(priceCharts.flatMap((c) => chartDarn(c)))], [priceCharts]);
   const area = useMemo(() => areaFor(props.sizing, entry.area, present), [props.sizing, entry.area, present]);
   const shape = useMemo(() => (area && hasOutsideCells(area) ? areaShapeMask(area) : null), [area]);
 
@@ -897,7 +917,18 @@ export function ChartEditor(props: ChartEditorProps) {
           ) : null}
         </section>
 
-        <PlanPanel chart={present} defaults={props.planDefaults} inTheRound={props.inTheRound} onMarks={setMarks} rounds={rounds} />
+        <PlanPanel
+          chart={present}
+          defaults={props.planDefaults}
+          inTheRound={props.inTheRound}
+          onMarks={setMarks}
+          rounds={rounds}
+          pinning={
+            firstEntry
+              ? { pins, palette: firstEntry.history.present.palette.map((c) => ({ key: c.key, name: c.name || c.key })), darn: pinDarn, onChange: setPins, readOnly }
+              : undefined
+          }
+        />
         {props.livePricing ? <LivePrice charts={priceCharts} pricing={props.livePricing} baselineKey={String(openedVersion)} sizing={props.sizing ?? null} sizingNote={props.sizingNote ?? null} onRounds={setRounds} /> : null}
       </div>
 

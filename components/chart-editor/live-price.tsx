@@ -6,20 +6,14 @@
 import { useEffect, useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
 import type { RoundReading } from "@/lib/core/garment";
-import { readDesignOnGarment, type ChartProblem } from "@/lib/core/design-garment";
 import type { PieceFeatures } from "@/lib/core/labour/piece-features";
-import type { QuotePolicy } from "@/lib/core/pricing/compose-quote";
 import { formatMoney } from "@/lib/core/pricing/format-money";
 import { livePrice, type ChartPiece } from "@/lib/core/pricing/live-price";
 import type { SizingResult } from "@/lib/core/sizing";
+import type { LivePricing } from "./garment-reading";
+import { useGarmentReading, type GarmentReading } from "./use-garment-reading";
 
-export interface LivePricing {
-  policy: QuotePolicy;
-  designFeeMinor: number;
-  floatLimitStitches: number;
-  floatLimitCm?: number;
-  carryLimitCm?: number;
-}
+export type { LivePricing } from "./garment-reading";
 
 export interface LivePriceProps {
   charts: ChartPiece[];
@@ -33,63 +27,50 @@ export interface LivePriceProps {
   onRounds?: (rounds: RoundReading[] | null) => void;
 }
 
-interface Read {
-  pieces: PieceFeatures[];
-  problems: ChartProblem[];
-  rounds: RoundReading[];
-  error: string | null;
-}
-
-function readGarment(sizing: SizingResult | null, charts: ChartPiece[], pricing: LivePricing): Read {
-  if (!sizing) return { pieces: [], problems: [], rounds: [], error: "The design has no garment to price (no commission sizing)." };
-  try {
-    const r = readDesignOnGarment(sizing, charts, {
-      proofRounds: 1,
-      rates: pricing.policy.rates,
-      floatLimitStitches: pricing.floatLimitStitches,
-      ...(pricing.floatLimitCm !== undefined ? { floatLimitCm: pricing.floatLimitCm } : {}),
-      ...(pricing.carryLimitCm !== undefined ? { carryLimitCm: pricing.carryLimitCm } : {}),
-    });
-    return { pieces: r.pieces, problems: r.problems, rounds: r.reading.rounds, error: null };
-  } catch (e) {
-    return { pieces: [], problems: [], rounds: [], error: e instanceof Error ? e.message : String(e) };
-  }
-}
-
-const DEBOUNCE_MS = 300;
-
 export function LivePrice({ charts, pricing, baselineKey, sizing, sizingNote, onRounds }: LivePriceProps) {
-  const { policy, designFeeMinor } = pricing;
-  // A stroke stays smooth: the price follows the charts once editing pauses.
-  const [settled, setSettled] = useState(charts);
-  useEffect(() => {
-    const t = setTimeout(() => setSettled(charts), DEBOUNCE_MS);
-    return () => clearTimeout(t);
-  }, [charts]);
+  // The garment is read in a worker once editing pauses; the last reading stays while the next is worked out.
+  const garment = useGarmentReading(sizing, charts, pricing, baselineKey);
+  return <LivePriceView reading={garment} pricing={pricing} baselineKey={baselineKey} sizingNote={sizingNote} onRounds={onRounds} />;
+}
 
-  const read = useMemo(() => readGarment(sizing, settled, pricing), [sizing, settled, pricing]);
-  const pieces = read.pieces;
-  useEffect(() => onRounds?.(read.error ? null : read.rounds), [read, onRounds]);
-  const [baseline, setBaseline] = useState<{ key: string; from: "opened" | "here"; pieces: PieceFeatures[] }>(() => ({
-    key: baselineKey,
-    from: "opened",
-    pieces: readGarment(sizing, charts, pricing).pieces,
-  }));
-  // Another version opened: price changes from there (set during render, React's reset pattern).
-  if (baseline.key !== baselineKey) setBaseline({ key: baselineKey, from: "opened", pieces: readGarment(sizing, charts, pricing).pieces });
+export interface LivePriceViewProps extends Pick<LivePriceProps, "pricing" | "baselineKey" | "sizingNote" | "onRounds"> {
+  reading: GarmentReading;
+}
+
+/** The live price for a reading of the garment (the latest answered, the baseline, whether one is pending). */
+export function LivePriceView({ reading: garment, pricing, baselineKey, sizingNote, onRounds }: LivePriceViewProps) {
+  const { policy, designFeeMinor } = pricing;
+  const read = garment.read;
+  const pieces = useMemo(() => read?.pieces ?? [], [read]);
+  useEffect(() => {
+    if (read) onRounds?.(read.error ? null : read.rounds);
+  }, [read, onRounds]);
+  // "Compare from here" replaces the opened version's reading until another version is opened.
+  const [here, setHere] = useState<{ key: string; pieces: PieceFeatures[] } | null>(null);
+  const opened = garment.baseline;
+  const baseline = useMemo(
+    () =>
+      here && here.key === baselineKey
+        ? { from: "here" as const, pieces: here.pieces }
+        : opened && opened.key === baselineKey
+          ? { from: "opened" as const, pieces: opened.read.pieces }
+          : null,
+    [here, opened, baselineKey],
+  );
 
   const result = useMemo(() => {
+    if (!read || !baseline) return null;
     if (read.error) return { ok: false as const, message: read.error };
     try {
       return { ok: true as const, value: livePrice(baseline.pieces, pieces, policy, designFeeMinor) };
     } catch (e) {
       return { ok: false as const, message: e instanceof Error ? e.message : String(e) };
     }
-  }, [read.error, baseline.pieces, pieces, policy, designFeeMinor]);
+  }, [read, baseline, pieces, policy, designFeeMinor]);
 
   const money = (minor: number, signed = false) => formatMoney(minor, policy.currency, "en-GB", signed ? { signDisplay: "exceptZero" } : {});
   let sentence = "";
-  if (result.ok) {
+  if (result?.ok && baseline) {
     const { change, totalDeltaMinor } = result.value;
     const since = baseline.from === "opened" ? "the version you opened" : "you chose to compare";
     sentence = change.changes.length === 0 ? `No change since ${since}.` : `Since ${since}: ${change.text}`;
@@ -102,19 +83,24 @@ export function LivePrice({ charts, pricing, baselineKey, sizing, sizingNote, on
         <h2 id="live-price-heading" className="text-lg">
           Live price
         </h2>
-        <Button variant="secondary" className="!px-3 !py-1.5 text-sm" onClick={() => setBaseline({ key: baselineKey, from: "here", pieces })} disabled={!result.ok || result.value.change.changes.length === 0}>
+        <Button variant="secondary" className="!px-3 !py-1.5 text-sm" onClick={() => setHere({ key: baselineKey, pieces })} disabled={!result?.ok || result.value.change.changes.length === 0}>
           Compare from here
         </Button>
       </div>
       <p aria-live="polite" aria-atomic="true" className="font-semibold" data-testid="live-price-change">
         {sentence}
       </p>
+      {garment.pending ? (
+        <p role="status" className="text-sm" data-testid="live-price-pending">
+          Working out the price…{result ? " (the figures below are from before your last edit)" : ""}
+        </p>
+      ) : null}
       {sizingNote ? (
         <p className="text-sm font-semibold" data-testid="live-price-sizing-note">
           {sizingNote}
         </p>
       ) : null}
-      {read.problems.length ? (
+      {read?.problems.length ? (
         <ul role="status" className="list-disc pl-5 text-sm font-semibold text-madder-dark" data-testid="live-price-problems">
           {read.problems.map((p) => (
             <li key={p.index}>
@@ -123,7 +109,7 @@ export function LivePrice({ charts, pricing, baselineKey, sizing, sizingNote, on
           ))}
         </ul>
       ) : null}
-      {result.ok ? (
+      {result === null ? null : result.ok ? (
         <div className="overflow-x-auto">
           <table className="w-full text-sm">
             <caption className="mb-1 text-left">

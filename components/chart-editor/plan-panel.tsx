@@ -8,7 +8,7 @@ import type { ColourPlan } from "@/lib/core/colourwork/colour-plan";
 import type { DarningPlan } from "@/lib/core/colourwork/darning-plan";
 import type { CellMark } from "./chart-canvas";
 import { DarningMap } from "./darning-map";
-import { RoundsTable } from "./rounds-table";
+import { RoundsTable, type Pinning } from "./rounds-table";
 import type { RoundReading } from "@/lib/core/garment";
 
 export interface PlanPanelProps {
@@ -18,6 +18,8 @@ export interface PlanPanelProps {
   onMarks?: (marks: CellMark[]) => void;
   /** the whole garment read round by round (from the live price), when the design has a commission */
   rounds?: RoundReading[] | null;
+  /** pinned pairs for ranges of rounds (saved with the design), when the editor can change them */
+  pinning?: Pinning;
 }
 
 interface PlanResponse {
@@ -41,7 +43,7 @@ export function floatCells(plan: ColourPlan, width: number): CellMark[] {
   return out;
 }
 
-export function PlanPanel({ chart, defaults, inTheRound: roundDefault, onMarks, rounds }: PlanPanelProps) {
+export function PlanPanel({ chart, defaults, inTheRound: roundDefault, onMarks, rounds, pinning }: PlanPanelProps) {
   const [doc, setDoc] = useState<ChartV1>(() => serializeChart(chart));
   const [knit, setKnit] = useState<string>("");
   const [inTheRound, setInTheRound] = useState(roundDefault);
@@ -91,7 +93,7 @@ export function PlanPanel({ chart, defaults, inTheRound: roundDefault, onMarks, 
       <h2 id="plan-heading" className="text-lg">
         Colour plan
       </h2>
-      {rounds?.length ? <RoundsTable rounds={rounds} name={name} /> : null}
+      {rounds?.length ? <RoundsTable rounds={rounds} name={name} {...(pinning ? { pinning } : {})} /> : null}
       <div className="flex flex-wrap items-end gap-3">
         <label className="flex flex-col text-sm">
           Knitted pair

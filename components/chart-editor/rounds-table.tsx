@@ -3,8 +3,11 @@
 // reading): runs of rounds that knit the same colours and darn nothing are shown as one line.
 import type { RoundReading } from "@/lib/core/garment";
 import { roundRuns } from "@/lib/core/design-garment";
+import { PinsForm, type PinsFormProps } from "./pins-form";
 
-export function RoundsTable({ rounds, name }: { rounds: RoundReading[]; name: (key: string) => string }) {
+export type Pinning = Omit<PinsFormProps, "rounds">;
+
+export function RoundsTable({ rounds, name, pinning }: { rounds: RoundReading[]; name: (key: string) => string; pinning?: Pinning }) {
   // The first piece is enough: a pair's second piece is read the same way (its rows are in the work sheet).
   const first = rounds[0]?.piece;
   const runs = roundRuns(rounds.filter((r) => r.piece === first));
@@ -39,6 +42,7 @@ export function RoundsTable({ rounds, name }: { rounds: RoundReading[]; name: (k
           </tbody>
         </table>
       </div>
+      {pinning ? <PinsForm rounds={rounds} {...pinning} /> : null}
     </details>
   );
 }

@@ -6,6 +6,10 @@
 // What the policy allows, and why:
 // - scripts: only ours carrying this request's nonce, and what they load ('strict-dynamic'); no inline
 //   handlers, no eval (except `next dev`, whose React needs eval for its debugging aids).
+// - workers: same-origin scripts only (`worker-src 'self'`, no blob: or data:). Said outright because a
+//   worker would otherwise fall back to script-src, where 'strict-dynamic' makes browsers ignore
+//   'self'. The chart editor reads the garment in a module worker that the bundler emits under
+//   /_next/static (its chunks load with importScripts from the same origin).
 // - style elements and stylesheets: ours ('self' and the nonce). Style ATTRIBUTES are allowed inline
 //   (`style-src-attr 'unsafe-inline'`): React's `style={…}` props, the chart editor's and proofs' SVG
 //   and the charts library set them in server-rendered markup, and a style attribute cannot run script.
@@ -38,6 +42,7 @@ export function contentSecurityPolicy(o: Pick<HeaderOptions, "nonce" | "appUrl" 
   return [
     "default-src 'self'",
     `script-src 'self' ${nonce} 'strict-dynamic'${o.dev ? " 'unsafe-eval'" : ""}`,
+    "worker-src 'self'",
     `style-src 'self' ${nonce}`,
     `style-src-elem 'self' ${nonce}`,
     "style-src-attr 'unsafe-inline'",

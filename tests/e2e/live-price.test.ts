@@ -73,5 +73,34 @@ describe("the live price in the chart editor", () => {
       await canvas.click({ position: { x: zoom / 2, y: rowPx / 2 } });
       await expect.poll(() => page.getByText(`Not painted: row ${H} from the bottom, stitch ${W} from the right is outside the shape`, { exact: false }).count(), POLL).toBe(1);
       expect(await change.textContent()).toBe("No change since you chose to compare.");
+
+      // Pin a pair for a range of rounds (under the round-by-round table). Rowanberry is darned, so
+      // pinning it as knitted is refused, naming the round that holds all three colours.
+      await page.getByText("Round by round: what is knitted and what is darned", { exact: false }).click();
+      const pinsForm = page.getByTestId("pins-form");
+      const last = await pinsForm.getByLabel("To round").getAttribute("max");
+      await pinsForm.getByLabel("From round").fill("1");
+      await pinsForm.getByLabel("To round").fill(String(last));
+      await pinsForm.getByLabel("First colour").selectOption({ label: "Gull white" });
+      await pinsForm.getByLabel("Second colour").selectOption({ label: "Rowanberry" });
+      await pinsForm.getByRole("button", { name: "Pin this pair" }).click();
+      await expect
+        .poll(() => page.getByTestId("pin-problem").textContent(), POLL)
+        .toMatch(/^Not pinned: Round \d+ of the .+ holds Gull white, Lichen green and Rowanberry: pinning Gull white and Rowanberry there would knit three colours with nothing darned/);
+      // Two knitted colours over rounds 1–2: listed, and saved with the next version.
+      await pinsForm.getByLabel("To round").fill("2");
+      await pinsForm.getByLabel("Second colour").selectOption({ label: "Lichen green" });
+      await pinsForm.getByRole("button", { name: "Pin this pair" }).click();
+      await expect.poll(() => page.getByTestId("pins-list").textContent(), POLL).toContain("rounds 1–2: Gull white and Lichen green");
+      await expectAccessible(page);
+      const savedPins = async () => {
+        const list = await (await page.request.get(`/api/designs/${designId}/versions`)).json();
+        const newest = list.versions[0];
+        const one = await (await page.request.get(`/api/designs/${designId}/versions/${newest.id}`)).json();
+        // stored as JSON (keys come back in the database's order): compared as values
+        const pins = (one.version.charts[0].options?.pins ?? []) as { fromRound: number; toRound: number; pair: string[] }[];
+        return pins.map((p) => `${p.fromRound}–${p.toRound} ${p.pair.join("")}`);
+      };
+      await expect.poll(savedPins, POLL).toEqual(["1–2 AB"]);
     }));
 });

@@ -3,3 +3,4 @@
 export { areaSlug, chartDarn, matchArea, piecesOf, readDesignOnGarment, type ChartProblem, type DesignChartOnGarment, type DesignOnGarment, type ReadDesignOptions } from "./read-design";
 export { areaShapeMask, findPaintOutsideShape, hasOutsideCells, outsideMessage, rowShape, type AreaShape } from "./shape";
 export { roundRuns, type RoundRun } from "./rounds";
+export { checkPins, pinParts, storedPins, type PinContext, type PinProblem } from "./pins";

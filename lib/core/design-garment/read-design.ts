@@ -5,9 +5,10 @@
 import type { Chart } from "../chart/model";
 import { planColours } from "../colourwork/colour-plan";
 import { garmentFeatures, garmentFromSizing, GarmentError, placeCharts } from "../garment";
-import type { ChartPlacement, FeatureOptions, Garment, GarmentReading, PlacedGarment, RoundPinInput } from "../garment";
+import type { ChartPlacement, FeatureOptions, Garment, GarmentReading, PlacedGarment } from "../garment";
 import type { PieceFeatures } from "../labour/piece-features";
 import type { SizingResult } from "../sizing/sizing-result";
+import { storedPins } from "./pins";
 import { findPaintOutsideShape, outsideMessage } from "./shape";
 
 /** A chart area's slug, as design chart entries name their area ("back of hand" → "back-of-hand"). */
@@ -66,25 +67,7 @@ export function matchArea(garment: Pick<Garment, "chartAreas">, slug: string): {
 
 const strings = (v: unknown): string[] => (Array.isArray(v) ? v.filter((x): x is string => typeof x === "string") : []);
 
-/** Pins as stored in a chart's options, kept only when they have the core's shape (the core checks the rest). */
-function pinsOf(v: unknown): RoundPinInput[] {
-  if (!Array.isArray(v)) return [];
-  return v.flatMap((p): RoundPinInput[] => {
-    if (!p || typeof p !== "object") return [];
-    const o = p as Record<string, unknown>;
-    const pair = o.pair;
-    if (!Number.isInteger(o.fromRound) || !Number.isInteger(o.toRound) || !Array.isArray(pair) || pair.length !== 2 || !pair.every((k) => typeof k === "string")) return [];
-    return [
-      {
-        fromRound: o.fromRound as number,
-        toRound: o.toRound as number,
-        pair: [pair[0] as string, pair[1] as string],
-        ...(typeof o.piece === "string" ? { piece: o.piece } : {}),
-        ...(typeof o.part === "string" ? { part: o.part } : {}),
-      },
-    ];
-  });
-}
+const pinsOf = storedPins;
 
 /** True when some row of the chart holds more than two colours (so something must be darned). */
 function needsDarning(chart: Chart): boolean {

@@ -2,30 +2,24 @@
 // rows (a mitten's top, a crown sector) leaves cells that are never knitted. The editor greys
 // them and refuses paint there; saves are refused when they are painted.
 import { toTrade, type Chart } from "../chart/model";
+import { DEFAULT_NARROWING, inShapeColumns } from "../garment/build-garment";
 import type { ChartArea } from "../sizing/sizing-result";
+
 
 export type AreaShape = Pick<ChartArea, "width" | "height" | "rowStitches" | "narrowing">;
 
 /**
- * In-shape columns (x from the left) of chart row `y`, as a mask of `width` booleans.
- * "edges": decreases at both edges, stitches centred (an odd leftover goes to the left edge);
- * "sector end": stitches at the sector's start in knitting order (the right of the chart, where
- * stitch 1 is), decreases at its end; "even": spread evenly across the row.
+ * In-shape columns (x from the left) of chart row `y`, as a mask of `width` booleans. The rule is
+ * the garment's own (`inShapeColumns` in lib/core/garment, with its default narrowing), so the
+ * editor greys exactly the cells the garment never knits: "edges" keeps the stitches centred (an
+ * odd leftover goes to the right edge), "sector end" keeps the sector's start (the right of the
+ * chart, where stitch 1 is), "even" spreads the decreases across the row.
  */
 export function rowShape(area: AreaShape, y: number): boolean[] {
   const w = area.width;
-  const n = Math.max(0, Math.min(w, area.rowStitches?.[y] ?? w));
+  const n = Math.max(0, Math.min(w, Math.floor(area.rowStitches?.[y] ?? w)));
   const mask = new Array<boolean>(w).fill(false);
-  if (n === w) return mask.fill(true);
-  const narrowing = area.narrowing ?? "edges";
-  if (narrowing === "sector end") {
-    for (let x = w - n; x < w; x++) mask[x] = true;
-  } else if (narrowing === "even") {
-    for (let x = 0; x < w; x++) mask[x] = Math.floor(((x + 1) * n) / w) > Math.floor((x * n) / w);
-  } else {
-    const left = Math.ceil((w - n) / 2);
-    for (let x = left; x < left + n; x++) mask[x] = true;
-  }
+  for (const x of inShapeColumns(w, n, area.narrowing ?? DEFAULT_NARROWING)) mask[x] = true;
   return mask;
 }
 

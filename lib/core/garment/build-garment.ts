@@ -52,9 +52,12 @@ function needRounds(p: Piece): number[] {
   return p.rounds;
 }
 
+/** How an area that names no narrowing loses its stitches (the editor's mask uses the same). */
+export const DEFAULT_NARROWING: Narrowing = "even";
+
 function chartGeometry(a: ChartArea): { fromRound: number; rowStitches: number[]; narrowing: Narrowing } {
   if (a.fromRound === undefined || !a.rowStitches) throw new Error(`sizing area '${a.area}' does not say where its rounds are`);
-  return { fromRound: a.fromRound, rowStitches: a.rowStitches, narrowing: a.narrowing ?? "even" };
+  return { fromRound: a.fromRound, rowStitches: a.rowStitches, narrowing: a.narrowing ?? DEFAULT_NARROWING };
 }
 
 /** Lays out one tube: every round's spans, areas aligned on an unrolled frame. */

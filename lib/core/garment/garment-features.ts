@@ -160,6 +160,7 @@ function readPart(
       stitches: round.stitches,
       shaping: round.shaping,
       knit: pr.knit,
+      colours: roundColourKeys(rows[r], palette),
       darned: pr.darned.length,
       longestFloat: pr.longestFloat,
       catches: pr.catches,
@@ -339,4 +340,11 @@ export function garmentFeatures(placed: PlacedGarment, opts: FeatureOptions = {}
       rates: labour.rates,
     },
   };
+}
+
+/** Keys of every colour a round holds (knitted or darned), in palette order. */
+function roundColourKeys(row: ArrayLike<number>, palette: { key: string }[]): string[] {
+  const seen = new Set<number>();
+  for (let k = 0; k < row.length; k++) seen.add(row[k]);
+  return [...seen].sort((a, b) => a - b).map((c) => palette[c].key);
 }

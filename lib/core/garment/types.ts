@@ -193,6 +193,8 @@ export interface RoundReading {
   shaping: boolean;
   /** keys of the knitted colours (one or two) */
   knit: string[];
+  /** keys of every colour in the round, knitted or darned (palette order) */
+  colours?: string[];
   /** darned stitches in the round, and their colours */
   darned: number;
   /** longest float in stitches, and the catches that keep floats within the limit */

@@ -1,6 +1,7 @@
 import { describe, expect, test } from "vitest";
 import { createChart } from "@/lib/core/chart/model";
 import { areaShapeMask, chartDarn, findPaintOutsideShape, matchArea, readDesignOnGarment, rowShape } from "@/lib/core/design-garment";
+import { areaShape, garmentFromSizing } from "@/lib/core/garment";
 import { sizeGarment } from "@/lib/core/sizing";
 
 const gauge = { stitchesPer10cm: 32, rowsPer10cm: 36 };
@@ -39,6 +40,29 @@ describe("an area's shape", () => {
   });
   test("the mask holds exactly the area's in-shape stitches (the size verb's count)", () => {
     expect(areaShapeMask(back).reduce((s, v) => s + v, 0)).toBe(back.rowStitches!.reduce((s, n) => s + n, 0));
+  });
+  test("one rule: the editor's mask is the garment's own shape for every area of a mitten, a hat and a pullover", () => {
+    const inputs = [
+      { garment: "mitten", size: "child", gauge },
+      { garment: "mitten", size: "woman M", gauge: { stitchesPer10cm: 27, rowsPer10cm: 30 } },
+      { garment: "hat", size: "woman", gauge },
+      { garment: "pullover", size: "woman M", gauge: { stitchesPer10cm: 20, rowsPer10cm: 28 } },
+    ];
+    let areas = 0;
+    for (const input of inputs) {
+      let s;
+      try {
+        s = sizeGarment(input);
+      } catch {
+        continue; // a size label this table does not know; the others still check the rule
+      }
+      const g = garmentFromSizing(s);
+      for (const a of s.charts) {
+        expect(Array.from(areaShapeMask(a)), `${input.garment} ${a.area}`).toEqual(Array.from(areaShape(g, a.area).inShape));
+        areas++;
+      }
+    }
+    expect(areas).toBeGreaterThan(4);
   });
   test("paint outside is found at its place; the background colour is not paint", () => {
     const chart = createChart(back.width, back.height, gauge, palette);

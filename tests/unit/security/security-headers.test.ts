@@ -15,6 +15,8 @@ describe("security headers", () => {
     expect(csp.get("img-src")).toContain("http://127.0.0.1:4568");
     expect(csp.get("form-action")).toEqual(["'self'", "http://127.0.0.1:12111"]);
     expect(csp.has("upgrade-insecure-requests")).toBe(false);
+    // the editor's garment worker: same-origin scripts, never blob: or data: workers
+    expect(csp.get("worker-src")).toEqual(["'self'"]);
   });
 
   test("eval only under next dev", () => {
