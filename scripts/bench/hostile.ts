@@ -9,7 +9,7 @@
 // parallel requests at accepting a quote and sending one while /api/health must answer.
 // It prints counts by status, every 5xx with its request, leaks and hangs; it never asserts.
 import http from "node:http";
-import { existsSync, readdirSync, readFileSync } from "node:fs";
+import { existsSync, readdirSync, readFileSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
 
 function arg(name: string, fallback: string): string {
@@ -26,6 +26,9 @@ const SECONDS = Number(arg("seconds", "480"));
 const CONCURRENCY = Number(arg("concurrency", "6"));
 const DIST = arg("dist", process.env.NEXT_DIST_DIR ?? ".next-probe");
 const PASSWORD = "darnwell-demo";
+/** --dump FILE: the requests answered 5xx, as JSON lines (no cookies), for scripts/bench/hostile-replay.ts */
+const DUMP = arg("dump", "");
+const dumped: string[] = [];
 const ORIGIN = base.origin;
 const deadline = Date.now() + SECONDS * 1000;
 const agent = new http.Agent({ keepAlive: true, maxSockets: 80 });
@@ -99,8 +102,10 @@ function record(r: Req, res: Res) {
   else if (res.status === "error") {
     // A connection the server closed on an over-limit body is an answer, not a crash; keep a note.
     counts.set("error", counts.get("error") ?? 0);
-  } else if (res.status >= 500) fives.push(`${res.status} ${describe(r)} → ${res.body.replace(/\s+/g, " ").slice(0, 160)}`);
-  else if (r.foreignId && res.status < 300 && res.body.includes(r.foreignId)) leaks.push(`${res.status} ${describe(r)}`);
+  } else if (res.status >= 500) {
+    fives.push(`${res.status} ${describe(r)} → ${res.body.replace(/\s+/g, " ").slice(0, 160)}`);
+    if (DUMP) dumped.push(JSON.stringify({ status: res.status, method: r.method, path: r.path, headers: r.headers ?? {}, chunked: !!r.chunked, body: r.body === undefined ? null : String(r.body) }));
+  } else if (r.foreignId && res.status < 300 && res.body.includes(r.foreignId)) leaks.push(`${res.status} ${describe(r)}`);
 }
 
 // A bounded pool: runs the queue with CONCURRENCY requests in flight, stops at MAX or the deadline.
@@ -210,10 +215,14 @@ async function main() {
   const started = Date.now();
   const health0 = await send({ method: "GET", path: "/api/health" });
   if (health0.status !== 200) throw new Error(`/api/health answered ${health0.status}`);
-  await signIn("owner", "maren@hollin.test");
-  await signIn("assistant", "tobias@hollin.test");
-  await signIn("priya", "priya@example.test");
-  await signIn("elias", "elias@example.test");
+  // Signing in again after each action's requests: one of them is sign-out, which ends the session.
+  const signInAll = async () => {
+    await signIn("owner", "maren@hollin.test");
+    await signIn("assistant", "tobias@hollin.test");
+    await signIn("priya", "priya@example.test");
+    await signIn("elias", "elias@example.test");
+  };
+  await signInAll();
   const who = ["owner", "assistant", "priya", "elias", "out"];
 
   // ---- whose ids are whose ----
@@ -356,7 +365,11 @@ async function main() {
     for (const w of who) queue.push({ method: "GET", path: p, who: w });
 
   console.log(`queued ${actionQueue.length} action requests, then ${queue.length} others (max ${MAX}, ${SECONDS} s)`);
-  await run(actionQueue);
+  for (const a of actions) {
+    await run(actionQueue.filter((r) => r.headers?.["next-action"] === a.id || r.body?.includes(a.id)));
+    await signInAll();
+  }
+  await run(actionQueue.filter((r) => !actions.some((a) => r.headers?.["next-action"] === a.id || r.body?.includes(a.id))));
 
   // ---- bursts of 50 parallel, with /api/health answering ----
   async function burst(name: string, make: () => Req) {
@@ -405,6 +418,7 @@ async function main() {
   for (const l of leaks) console.log("  " + l);
   console.log(`hangs (no answer in 30 s, or /api/health failing in a burst): ${hangs.length}`);
   for (const h of hangs) console.log("  " + h);
+  if (DUMP) writeFileSync(DUMP, dumped.join("\n") + "\n");
   agent.destroy();
 }
 
