@@ -1,18 +1,25 @@
-// Runs before every request except static files: (0) a server action declaring more than the body
-// limit gets 413 here, not a 500 from inside the framework (lib/action-body-limit.ts); (1) moves client-sent forwarding headers aside so
+// Runs before every request except static files: (0) a server action that Next's own decoding would
+// answer 500 gets 403/411/413/400 here (foreign Origin, no length, over 1 MB, not React's reply encoding:
+// lib/action-request-guard.ts); (1) moves client-sent forwarding headers aside so
 // handlers see the socket's address (lib/server/client-address.ts); (2) the security headers and the
 // per-request CSP nonce (lib/server/security-headers.ts; Next.js's documented nonce pattern).
 // Sessions are checked in each page, action and route, never here.
 import { randomBytes } from "node:crypto";
 import { NextResponse, type NextRequest } from "next/server";
-import { oversizedActionResponse } from "@/lib/action-body-limit";
+import { actionBodyRefusal, actionHeaderRefusal, isActionRequest } from "@/lib/action-request-guard";
 import { env } from "@/lib/env";
+import { malformedPathResponse } from "@/lib/path-guard";
 import { moveForwardingHeaders } from "@/lib/server/client-address";
 import { checkoutOrigins, contentSecurityPolicy, securityHeaders, storageOrigins } from "@/lib/server/security-headers";
 
-export function proxy(request: NextRequest) {
-  const tooLarge = oversizedActionResponse(request.method, request.headers);
-  if (tooLarge) return tooLarge;
+export async function proxy(request: NextRequest) {
+  const badPath = malformedPathResponse(request.nextUrl.pathname);
+  if (badPath) return badPath;
+  // A request Next would run as a server action: refused here if Next's own decoding would fail (500).
+  if (isActionRequest(request.method, request.headers, request.nextUrl.pathname)) {
+    const refused = actionHeaderRefusal(request.headers) ?? (await actionBodyRefusal(request));
+    if (refused) return refused;
+  }
   const nonce = randomBytes(16).toString("base64");
   const options = {
     nonce,
@@ -42,9 +49,10 @@ export function proxy(request: NextRequest) {
 // (Literal on purpose: Next.js reads this config at build time without running it.)
 export const config = {
   matcher: [
-    // Everything but build assets and the uploads, always. No `missing` conditions: a header a client can
+    // Everything but build assets and the uploads, always (an upload whose id holds a "%" too, so a
+    // malformed encoding gets the proxy's 400, lib/path-guard.ts). No `missing` conditions: a header a client can
     // add must not switch the proxy off.
-    "/((?!_next/static|_next/image|favicon.ico|api/studios/[^/]+/request-photos|api/commissions/[^/]+/uploads|api/production/pieces/[^/]+/photos).*)",
+    "/((?!_next/static|_next/image|favicon.ico|api/studios/[^/%]+/request-photos|api/commissions/[^/%]+/uploads|api/production/pieces/[^/%]+/photos).*)",
     { source: "/api/studios/:slug/request-photos", has: [{ type: "header", key: "x-forwarded-for" }] },
     { source: "/api/studios/:slug/request-photos", has: [{ type: "header", key: "x-darnwell-forwarded-for" }] },
     { source: "/api/studios/:slug/request-photos", has: [{ type: "header", key: "x-darnwell-client-address" }] },

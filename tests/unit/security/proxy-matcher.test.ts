@@ -24,6 +24,11 @@ describe("the proxy's matcher", () => {
     (url, header) => expect(runs(url, { [header]: "9.9.9.9" })).toBe(true),
   );
 
+  test.each(["/api/commissions/%ED%A0%80/uploads", "/api/production/pieces/%FF/photos", "/api/studios/%C0%80/request-photos"])(
+    "runs for the upload %s whose id is malformed, so it gets the proxy's 400 (lib/path-guard.ts)",
+    (url) => expect(runs(url)).toBe(true),
+  );
+
   test("a header a client can add does not switch it off (the prefetch headers of the docs' example are not used)", () => {
     expect(runs("/api/auth/sign-in/email", { "next-router-prefetch": "1", purpose: "prefetch", "x-forwarded-for": "9.9.9.9" })).toBe(true);
   });
