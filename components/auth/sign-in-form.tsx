@@ -20,12 +20,15 @@ export function SignInForm({ next, initialError, localInbox }: { next: string; i
 
   const onPassword = pw.handleSubmit(async (values) => {
     setMessage(null);
-    const { error } = await authClient.signIn.email({ email: values.email, password: values.password, callbackURL: next });
+    const { data, error } = await authClient.signIn.email({ email: values.email, password: values.password, callbackURL: next });
     if (error) {
       pw.resetField("password");
       setMessage({ tone: "error", text: authErrorMessage(error.code, error.status) });
       return;
     }
+    // With a callbackURL the auth client already loads that page itself (data.redirect); a second,
+    // client-side navigation on top of it raced it and could land after the page had opened.
+    if (data && "redirect" in data && data.redirect) return;
     router.push(next);
     router.refresh();
   });

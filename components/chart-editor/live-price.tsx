@@ -101,13 +101,16 @@ export function LivePriceView({ reading: garment, pricing, baselineKey, sizingNo
         </p>
       ) : null}
       {read?.problems.length ? (
-        <ul role="status" className="list-disc pl-5 text-sm font-semibold text-madder-dark" data-testid="live-price-problems">
-          {read.problems.map((p) => (
-            <li key={p.index}>
-              Not counted: {p.label} ({p.message})
-            </li>
-          ))}
-        </ul>
+        // The live region wraps the list: a role on the <ul> itself would hide its items from the list.
+        <div role="status">
+          <ul className="list-disc pl-5 text-sm font-semibold text-madder-dark" data-testid="live-price-problems">
+            {read.problems.map((p) => (
+              <li key={p.index}>
+                Not counted: {p.label} ({p.message})
+              </li>
+            ))}
+          </ul>
+        </div>
       ) : null}
       {result === null ? null : result.ok ? (
         <div className="overflow-x-auto">
