@@ -15,7 +15,7 @@ import { createHash } from "node:crypto";
 import { readFileSync } from "node:fs";
 import { randomBytes } from "node:crypto";
 import { and, eq, inArray } from "drizzle-orm";
-import { afterAll, afterEach, beforeAll, describe, expect, test } from "vitest";
+import { afterEach, beforeAll, describe, expect, test } from "vitest";
 import { db, getPool } from "@/db";
 import {
   commissionEvents,
@@ -46,38 +46,16 @@ import { approveProof, sendProof } from "@/lib/server/proofs";
 import { acceptQuote, saveQuoteDraft, sendQuote } from "@/lib/server/quotes";
 import { updateStudioSettings } from "@/lib/server/settings";
 import { GET as healthGET } from "@/app/api/health/route";
-import { POST as webhookPOST } from "@/app/api/payments/webhook/route";
 import { POST as sendQuotePOST } from "@/app/api/quotes/[id]/send/route";
-import { startPaymentsFake, type PaymentsFake } from "@/scripts/fakes/payments";
+import type { PaymentsFake } from "@/scripts/fakes/payments";
+import { paymentsFakeForFile } from "./payments-fake";
 import { makeWorld, requestWith, signIn, uid, type Jar, type World } from "./helpers";
 
+const payFake = paymentsFakeForFile();
+const { hook } = payFake;
 let fake: PaymentsFake;
-const SECRET = `sk_test_${randomBytes(12).toString("hex")}`;
-const WHSEC = `whsec_${randomBytes(12).toString("hex")}`;
-
-const hook = (payload: string, signature: string) =>
-  webhookPOST(new Request("http://127.0.0.1/api/payments/webhook", { method: "POST", headers: { "stripe-signature": signature, "content-type": "application/json" }, body: payload }));
-
-const saved = { key: process.env.STRIPE_SECRET_KEY, hook: process.env.STRIPE_WEBHOOK_SECRET, url: process.env.STRIPE_API_URL };
-beforeAll(async () => {
-  fake = await startPaymentsFake({
-    port: 0,
-    secretKey: SECRET,
-    webhookSecret: WHSEC,
-    retryBaseMs: 20,
-    maxAttempts: 4,
-    deliver: async (payload, headers) => (await hook(payload, headers["stripe-signature"])).status,
-  });
-  process.env.STRIPE_SECRET_KEY = SECRET;
-  process.env.STRIPE_WEBHOOK_SECRET = WHSEC;
-  process.env.STRIPE_API_URL = fake.url;
-});
-afterAll(async () => {
-  await fake?.close();
-  for (const [k, v] of [["STRIPE_SECRET_KEY", saved.key], ["STRIPE_WEBHOOK_SECRET", saved.hook], ["STRIPE_API_URL", saved.url]] as const) {
-    if (v === undefined) delete process.env[k];
-    else process.env[k] = v;
-  }
+beforeAll(() => {
+  fake = payFake.fake();
 });
 
 const pause = (ms: number) => new Promise((r) => setTimeout(r, ms));

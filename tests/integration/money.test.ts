@@ -5,7 +5,7 @@ import { execFileSync } from "node:child_process";
 import { mkdirSync, writeFileSync } from "node:fs";
 import { randomBytes } from "node:crypto";
 import { and, eq } from "drizzle-orm";
-import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import { beforeAll, describe, expect, test } from "vitest";
 import { db } from "@/db";
 import { commissionEvents, commissions, invoices, payments, quoteVersions, studios, webhookEvents, yarnLots, yarnReservations, yarns } from "@/db/schema";
 import type { Quote } from "@/lib/core/pricing/build-quote";
@@ -15,8 +15,8 @@ import { AppError } from "@/lib/server/errors";
 import { allocateDocumentNumber, issueDocument, refundByPolicy, renderDocumentPdf, requestBalance, startCheckout } from "@/lib/server/payments";
 import { acceptQuote, renderQuotePdf, requestQuoteChanges, saveQuoteDraft, sendQuote } from "@/lib/server/quotes";
 import { updateStudioSettings } from "@/lib/server/settings";
-import { POST as webhookPOST } from "@/app/api/payments/webhook/route";
-import { startPaymentsFake, type PaymentsFake } from "@/scripts/fakes/payments";
+import type { PaymentsFake } from "@/scripts/fakes/payments";
+import { paymentsFakeForFile } from "./payments-fake";
 import Stripe from "stripe";
 import { GET as paymentsGET } from "@/app/api/payments/route";
 import { GET as exportGET } from "@/app/api/payments/export/route";
@@ -25,33 +25,11 @@ import { GET as docPdfGET } from "@/app/api/documents/[id]/pdf/route";
 import { POST as quotesPOST } from "@/app/api/commissions/[id]/quotes/route";
 import { makeWorld, requestWith, signIn, waitForMail, type World } from "./helpers";
 
+const payFake = paymentsFakeForFile();
+const { secret: SECRET, hook } = payFake;
 let fake: PaymentsFake;
-const SECRET = `sk_test_${randomBytes(12).toString("hex")}`;
-const WHSEC = `whsec_${randomBytes(12).toString("hex")}`;
-
-const hook = (payload: string, signature: string) =>
-  webhookPOST(new Request("http://127.0.0.1/api/payments/webhook", { method: "POST", headers: { "stripe-signature": signature, "content-type": "application/json" }, body: payload }));
-
-const saved = { key: process.env.STRIPE_SECRET_KEY, hook: process.env.STRIPE_WEBHOOK_SECRET, url: process.env.STRIPE_API_URL };
-beforeAll(async () => {
-  fake = await startPaymentsFake({
-    port: 0,
-    secretKey: SECRET,
-    webhookSecret: WHSEC,
-    retryBaseMs: 20,
-    maxAttempts: 4,
-    deliver: async (payload, headers) => (await hook(payload, headers["stripe-signature"])).status,
-  });
-  process.env.STRIPE_SECRET_KEY = SECRET;
-  process.env.STRIPE_WEBHOOK_SECRET = WHSEC;
-  process.env.STRIPE_API_URL = fake.url;
-});
-afterAll(async () => {
-  await fake?.close();
-  for (const [k, v] of [["STRIPE_SECRET_KEY", saved.key], ["STRIPE_WEBHOOK_SECRET", saved.hook], ["STRIPE_API_URL", saved.url]] as const) {
-    if (v === undefined) delete process.env[k];
-    else process.env[k] = v;
-  }
+beforeAll(() => {
+  fake = payFake.fake();
 });
 
 async function setup(opts: { depositPercent?: number; refundBeforeKnitting?: number } = {}) {
