@@ -85,34 +85,10 @@ export function PinsForm({ rounds, pins, palette, darn, onChange, readOnly }: Pi
             </select>
           </label>
         ) : null}
-        <label className="flex flex-col">
-          From round
-          <input className="w-20 rounded-md border border-bark/40 px-2 py-1" type="number" inputMode="numeric" min={1} max={chosen.rounds} value={from} onChange={(e) => setFrom(e.target.value)} />
-        </label>
-        <label className="flex flex-col">
-          To round
-          <input className="w-20 rounded-md border border-bark/40 px-2 py-1" type="number" inputMode="numeric" min={1} max={chosen.rounds} value={to} onChange={(e) => setTo(e.target.value)} />
-        </label>
-        <label className="flex flex-col">
-          First colour
-          <select className="rounded-md border border-bark/40 px-2 py-1" value={a} onChange={(e) => setA(e.target.value)}>
-            {palette.map((c) => (
-              <option key={c.key} value={c.key}>
-                {c.name}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="flex flex-col">
-          Second colour
-          <select className="rounded-md border border-bark/40 px-2 py-1" value={b} onChange={(e) => setB(e.target.value)}>
-            {palette.map((c) => (
-              <option key={c.key} value={c.key}>
-                {c.name}
-              </option>
-            ))}
-          </select>
-        </label>
+        <RoundField label="From round" max={chosen.rounds} value={from} onChange={setFrom} />
+        <RoundField label="To round" max={chosen.rounds} value={to} onChange={setTo} />
+        <ColourField label="First colour" palette={palette} value={a} onChange={setA} />
+        <ColourField label="Second colour" palette={palette} value={b} onChange={setB} />
         <Button variant="secondary" className="!px-3 !py-1.5" onClick={add}>
           Pin this pair
         </Button>
@@ -123,5 +99,29 @@ export function PinsForm({ rounds, pins, palette, darn, onChange, readOnly }: Pi
         </p>
       ) : null}
     </div>
+  );
+}
+
+function RoundField({ label, max, value, onChange }: { label: string; max: number; value: string; onChange: (v: string) => void }) {
+  return (
+    <label className="flex flex-col">
+      {label}
+      <input className="w-20 rounded-md border border-bark/40 px-2 py-1" type="number" inputMode="numeric" min={1} max={max} value={value} onChange={(e) => onChange(e.target.value)} />
+    </label>
+  );
+}
+
+function ColourField({ label, palette, value, onChange }: { label: string; palette: { key: string; name: string }[]; value: string; onChange: (v: string) => void }) {
+  return (
+    <label className="flex flex-col">
+      {label}
+      <select className="rounded-md border border-bark/40 px-2 py-1" value={value} onChange={(e) => onChange(e.target.value)}>
+        {palette.map((c) => (
+          <option key={c.key} value={c.key}>
+            {c.name}
+          </option>
+        ))}
+      </select>
+    </label>
   );
 }
