@@ -7,7 +7,7 @@ import { magicLink } from "better-auth/plugins/magic-link";
 import { db } from "@/db";
 import { account, rateLimit, session, user, verification } from "@/db/schema";
 import { env } from "@/lib/env";
-import { magicLinkMessage, resetPasswordMessage, verifyEmailMessage } from "@/templates/email/auth";
+import { existingAccountSignUpMessage, magicLinkMessage, resetPasswordMessage, verifyEmailMessage } from "@/templates/email/auth";
 import { CLIENT_ADDRESS_HEADER } from "./client-address";
 import { enqueueMail } from "./outbox";
 import { clearSignInAttempts, noticeFailedSignIn, recordSignInAttempt } from "./sign-in-lock";
@@ -38,6 +38,14 @@ function createAuth() {
       resetPasswordTokenExpiresIn: 60 * 60,
       revokeSessionsOnPasswordReset: true,
       sendResetPassword: async ({ user: u, url }) => deliver(u.email, resetPasswordMessage(u.name, url)),
+      // The page says "we sent a link" either way (nothing revealed); the owner of the address gets a
+      // mail saying so, at most one an hour, so the page stays true without a flood.
+      onExistingUserSignUp: async ({ user: u }) => {
+        const hour = new Date().toISOString().slice(0, 13);
+        const signInUrl = new URL("/sign-in", env.BETTER_AUTH_URL).toString();
+        const resetUrl = new URL("/forgot-password", env.BETTER_AUTH_URL).toString();
+        await enqueueMail({ to: u.email, ...existingAccountSignUpMessage(u.name, signInUrl, resetUrl), dedupeKey: `existing-sign-up:${u.id}:${hour}` });
+      },
     },
     emailVerification: {
       sendOnSignUp: true,

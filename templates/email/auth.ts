@@ -26,6 +26,21 @@ export function resetPasswordMessage(name: string, url: string) {
   });
 }
 
+/** Sent instead of a confirmation when someone signs up with an address that already has an account. */
+export function existingAccountSignUpMessage(name: string, signInUrl: string, resetUrl: string) {
+  return renderEmail({
+    subject: "Someone tried to sign up to Darnwell with your address",
+    heading: "You already have an account",
+    paragraphs: [
+      `Hello ${name},`,
+      "Someone (we hope you) just tried to open a new Darnwell account with this e-mail address. This address already has an account, so no new one was made and nothing about your account changed.",
+      `If it was you, sign in instead: ${signInUrl}. Forgotten your password? Choose a new one with the button below.`,
+      "If it was not you, you can ignore this message.",
+    ],
+    action: { label: "Choose a new password", url: resetUrl },
+  });
+}
+
 export function magicLinkMessage(url: string) {
   return renderEmail({
     subject: "Your Darnwell sign-in link",

@@ -53,6 +53,21 @@ describe("sign-up, e-mail verification and sign-in (real database, real SMTP)", 
     expect((await res.json()).code).toBe("INVALID_EMAIL_OR_PASSWORD");
   });
 
+  test("signing up with an address that has an account answers as usual and mails its owner once an hour", async () => {
+    const u = await makeUser("existing");
+    const before = await mailCount(u.email);
+    const res = await authCall(newJar(), "/sign-up/email", { body: { name: "Someone", email: u.email, password: "a-long-enough-pass" } });
+    // The same answer as a new address: nothing tells the caller that this address has an account.
+    expect(res.status).toBe(200);
+    const mail = await waitForMail(u.email, (m) => /tried to sign up/i.test(m.subject));
+    expect(mail.text).toContain("/sign-in");
+    expect(mail.links.some((l) => l.includes("/forgot-password"))).toBe(true);
+    // A second try within the hour sends nothing more; the account's password is unchanged.
+    await authCall(newJar(), "/sign-up/email", { body: { name: "Someone", email: u.email, password: "another-long-pass" } });
+    await expect.poll(() => mailCount(u.email), { timeout: 3000 }).toBe(before + 1);
+    expect((await signInAttempt(u.email, TEST_PASSWORD)).status).toBe(200);
+  });
+
   test("a password that is too short is refused at sign-up", async () => {
     const res = await authCall(newJar(), "/sign-up/email", { body: { name: "Short", email: freshEmail("short"), password: "short" } });
     expect(res.status).toBe(400);
