@@ -127,7 +127,7 @@ export async function startProduction(actor: Actor, commissionId: string, layout
 
 async function loadPieceFor(actor: Actor, pieceId: string, tx: Executor = db, lock = false) {
   const q = tx
-    .select({ piece: pieces, commissionState: commissions.state, commissionId: commissions.id })
+    .select({ piece: pieces, commissionState: commissions.state, commissionId: commissions.id, commissionCreatedAt: commissions.createdAt })
     .from(pieces)
     .innerJoin(commissions, eq(commissions.id, pieces.commissionId))
     .where(eq(pieces.id, pieceId));
@@ -517,6 +517,13 @@ async function assertNoOverlap(tx: Tx, userId: string, start: Date, end: Date, e
   }
 }
 
+/** The calendar day (YYYY-MM-DD) an instant falls on in a time zone. */
+export function dayIn(instant: Date, timeZone: string): string {
+  const parts = new Intl.DateTimeFormat("en-GB", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).formatToParts(instant);
+  const g = (t: string) => parts.find((p) => p.type === t)?.value ?? "";
+  return `${g("year")}-${g("month")}-${g("day")}`;
+}
+
 /** Wall-clock instant of a date and time in the studio's time zone. */
 export function zonedInstant(date: string, time: string, timeZone: string): Date {
   const naive = new Date(`${date}T${time}:00Z`);
@@ -543,7 +550,7 @@ export function zonedInstant(date: string, time: string, timeZone: string): Date
 export async function addManualEntry(actor: Actor, raw: ManualEntryInput | z.output<typeof manualEntrySchema>, now = new Date()) {
   const input = manualEntrySchema.parse(raw);
   return db.transaction(async (tx) => {
-    const { piece, commissionState } = await loadPieceFor(actor, input.pieceId, tx);
+    const { piece, commissionState, commissionCreatedAt } = await loadPieceFor(actor, input.pieceId, tx);
     assertCan(actor, "commission.work", piece.studioId);
     assertLoggable(commissionState);
     const tz = await studioTimeZone(piece.studioId, tx);
@@ -552,6 +559,14 @@ export async function addManualEntry(actor: Actor, raw: ManualEntryInput | z.out
     if (end.getTime() > now.getTime()) {
       throw new AppError(422, "in_future", "Time cannot be logged in the future; check the date, start time and minutes.", {
         date: ["This entry would end in the future."],
+      });
+    }
+    // Work on a commission cannot have been done before the client asked for it (a mistyped year).
+    const firstDay = zonedInstant(dayIn(commissionCreatedAt, tz), "00:00", tz);
+    if (start.getTime() < firstDay.getTime()) {
+      const requested = dayIn(commissionCreatedAt, tz);
+      throw new AppError(422, "before_commission", `This commission was requested on ${requested}; time for it cannot be logged before that day.`, {
+        date: [`Choose a day on or after ${requested}, when the commission was requested.`],
       });
     }
     await assertNoOverlap(tx, actor.userId, start, end);

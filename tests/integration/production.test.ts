@@ -35,7 +35,8 @@ async function call(handler: (r: Request, c: { params: Promise<Record<string, st
 async function commissionIn(state: "proof_approved" | "in_production" | "delivered", garment: "mittens" | "hat" = "mittens") {
   const [c] = await db
     .insert(commissions)
-    .values({ studioId: w.studioId, clientId: w.clientA.clientId, number: 100 + Math.floor(Math.random() * 1e6), title: "Test piece work", garment, currency: "GBP", state })
+    // Requested a month ago, so entries dated in the last days fall after the request.
+    .values({ studioId: w.studioId, clientId: w.clientA.clientId, number: 100 + Math.floor(Math.random() * 1e6), title: "Test piece work", garment, currency: "GBP", state, createdAt: new Date(Date.now() - 30 * 86_400_000) })
     .returning();
   return c.id;
 }
@@ -183,6 +184,12 @@ describe("timers and time entries", () => {
     const future = await call(postEntry, jars.assistant, "/api/production/entries", "POST", "", entry({ date: new Date(Date.now() + 30 * 86_400_000).toISOString().slice(0, 10) }));
     expect(future.status).toBe(422);
     expect(future.body.error.message).toMatch(/future/);
+    // A mistyped year: before the commission was requested (and before the schema's window).
+    const early = await call(postEntry, jars.assistant, "/api/production/entries", "POST", "", entry({ date: new Date(Date.now() - 40 * 86_400_000).toISOString().slice(0, 10) }));
+    expect(early.status).toBe(422);
+    expect(early.body.error.fieldErrors.date[0]).toMatch(/on or after/);
+    const ancient = await call(postEntry, jars.assistant, "/api/production/entries", "POST", "", entry({ date: "1999-01-01" }));
+    expect(ancient.status).toBe(422);
     const overlap = await call(postEntry, jars.assistant, "/api/production/entries", "POST", "", entry({ startTime: "10:30" }));
     expect(overlap.status).toBe(409);
     expect(overlap.body.error.message).toMatch(/overlaps/);
