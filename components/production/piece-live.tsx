@@ -6,6 +6,7 @@ import { useId, useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { Button } from "@/components/ui/button";
+import { ConfirmButton } from "@/components/ui/confirm-button";
 import { Notice } from "@/components/ui/notice";
 import { estimateStatus, FLAG_LABELS, formatMinutes, type TimerFlag } from "@/lib/core/production";
 import { manualEntrySchema, WORK_STAGE_LABELS, WORK_STAGES, type WorkStageName } from "@/lib/schemas/production";
@@ -68,12 +69,41 @@ export function PieceLive({ initial, me, isOwner, today }: { initial: PieceDetai
     onSuccess: refresh,
     onError,
   });
-  const remove = useMutation({ mutationFn: (id: string) => api(`/api/production/entries/${id}`, { method: "DELETE" }), onSuccess: refresh, onError });
+  // A deleted entry can be brought back for a while (the server keeps it, marked deleted).
+  const [undoable, setUndoable] = useState<{ id: string; text: string } | null>(null);
+  const remove = useMutation({
+    mutationFn: (e: { id: string; text: string }) => api(`/api/production/entries/${e.id}`, { method: "DELETE" }),
+    onMutate: () => setError(null),
+    onSuccess: (_r, e) => {
+      setUndoable(e);
+      void refresh();
+    },
+    onError,
+  });
+  const restore = useMutation({
+    mutationFn: (id: string) => api(`/api/production/entries/${id}/restore`, { method: "POST" }),
+    onMutate: () => setError(null),
+    onSuccess: () => {
+      setUndoable(null);
+      void refresh();
+    },
+    onError,
+  });
   const loggable = ["in_production", "ready", "balance_paid"].includes(d.piece.commissionState);
 
   return (
     <div className="flex flex-col gap-6">
       {error ? <Notice tone="error">{error}</Notice> : null}
+      <div aria-live="polite">
+        {undoable ? (
+          <p className="flex flex-wrap items-center gap-3 rounded-md border border-bark/20 bg-white p-3">
+            <span>Deleted: {undoable.text}.</span>
+            <Button variant="secondary" className="px-3 py-1 text-sm" disabled={restore.isPending} onClick={() => restore.mutate(undoable.id)}>
+              Undo
+            </Button>
+          </p>
+        ) : null}
+      </div>
       <section aria-labelledby="est-heading">
         <h2 id="est-heading" className="mb-2 text-xl">
           Estimate and hours logged
@@ -168,7 +198,7 @@ export function PieceLive({ initial, me, isOwner, today }: { initial: PieceDetai
                 <p className="mt-1 font-semibold text-madder-dark">{FLAG_LABELS[e.flag as TimerFlag] ?? e.flag}; not counted until confirmed.</p>
               ) : null}
               {!e.running && (e.userId === me || isOwner) ? (
-                <EntryEdit entry={e} onSave={(minutes, confirm) => fix.mutate({ id: e.id, minutes, confirm })} onDelete={() => remove.mutate(e.id)} busy={fix.isPending || remove.isPending} />
+                <EntryEdit entry={e} onSave={(minutes, confirm) => fix.mutate({ id: e.id, minutes, confirm })} onDelete={() => remove.mutate({ id: e.id, text: `${formatMinutes(e.minutes)} of ${(WORK_STAGE_LABELS[e.stage as WorkStageName] ?? e.stage).toLowerCase()}` })} busy={fix.isPending || remove.isPending} />
               ) : null}
             </li>
           ))}
@@ -192,7 +222,14 @@ function EntryEdit({ entry, onSave, onDelete, busy }: { entry: PieceDetail["entr
       <Button variant="secondary" className="px-3 py-1 text-sm" disabled={busy || !valid} onClick={() => onSave(n, entry.flag ? true : undefined)}>
         {entry.flag ? "Confirm minutes" : "Save correction"}
       </Button>
-      <Button variant="quiet" className="px-2 py-1 text-sm" disabled={busy} onClick={onDelete}>Delete entry</Button>
+      <ConfirmButton
+        label="Delete entry"
+        question={`Delete ${formatMinutes(entry.minutes)} logged on ${new Date(entry.startedAt).toLocaleDateString("en-GB", { dateStyle: "medium" })}?`}
+        confirmLabel="Delete"
+        keepLabel="Keep it"
+        disabled={busy}
+        onConfirm={onDelete}
+      />
       {!valid ? <p className="w-full text-sm text-madder-dark" role="alert">Use whole minutes from 1 to 1440.</p> : null}
     </div>
   );

@@ -627,6 +627,29 @@ export async function deleteEntry(actor: Actor, entryId: string) {
   });
 }
 
+/** How long a deleted entry can be brought back with "Undo". */
+export const ENTRY_UNDO_MINUTES = 30;
+
+/** Brings back an entry deleted in the last half hour (the undo after a delete), audited like the delete. */
+export async function restoreEntry(actor: Actor, entryId: string, now = new Date()) {
+  return db.transaction(async (tx) => {
+    const [entry] = await tx.select().from(timeEntries).where(eq(timeEntries.id, entryId)).for("update");
+    if (!entry || memberRole(actor, entry.studioId) === null) throw notFound("That time entry");
+    assertCan(actor, "commission.work", entry.studioId);
+    if (entry.userId !== actor.userId && memberRole(actor, entry.studioId) !== "owner") {
+      throw forbidden("Only the person who logged this time, or the studio owner, can change it.");
+    }
+    if (!entry.deletedAt) return entry; // restored already (a double click): nothing to do
+    if (now.getTime() - entry.deletedAt.getTime() > ENTRY_UNDO_MINUTES * 60_000) {
+      throw conflict(`An entry can be brought back within ${ENTRY_UNDO_MINUTES} minutes of deleting it; log the time again instead.`);
+    }
+    await assertNoOverlap(tx, entry.userId, entry.startedAt, entry.endedAt ?? now, entry.id);
+    const [restored] = await tx.update(timeEntries).set({ deletedAt: null, updatedAt: now }).where(eq(timeEntries.id, entry.id)).returning();
+    await tx.insert(timeEntryEdits).values({ entryId: entry.id, editorUserId: actor.userId, before: { deleted: true }, after: snapshot(restored) });
+    return restored;
+  });
+}
+
 /**
  * Owner or assistant: corrects a piece's labour features (a design changed after set-up, more
  * darning than planned) and re-estimates its stages with the studio's rates, in one transaction.

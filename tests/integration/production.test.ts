@@ -1,6 +1,7 @@
 import { and, eq, isNull } from "drizzle-orm";
 import { beforeAll, describe, expect, test } from "vitest";
-import { PATCH as patchEntry } from "@/app/api/production/entries/[id]/route";
+import { POST as postRestore } from "@/app/api/production/entries/[id]/restore/route";
+import { DELETE as deleteEntryRoute, PATCH as patchEntry } from "@/app/api/production/entries/[id]/route";
 import { POST as postEntry } from "@/app/api/production/entries/route";
 import { POST as postMove } from "@/app/api/production/pieces/[id]/move/route";
 import { PATCH as patchTimer } from "@/app/api/production/timers/[id]/route";
@@ -212,6 +213,34 @@ describe("timers and time entries", () => {
     expect(theirs.status).toBe(201);
     expect((await call(patchEntry, jars.assistant, "/x", "PATCH", mine.body.entry.id, { minutes: 5 })).status).toBe(403);
     expect((await call(patchEntry, jars.owner, "/x", "PATCH", theirs.body.entry.id, { minutes: 30 })).status).toBe(200);
+  });
+
+  test("a deleted entry can be brought back within the undo window, once, by whom could delete it", async () => {
+    const id = await commissionIn("in_production", "hat");
+    const [hat] = await createPieces(await w.actor(w.owner.id), id, "one");
+    const day = new Date(Date.now() - 6 * 86_400_000).toISOString().slice(0, 10);
+    const made = await call(postEntry, jars.assistant, "/api/production/entries", "POST", "", { pieceId: hat.id, stage: "knitting", date: day, startTime: "13:00", minutes: 45 });
+    const entryId = made.body.entry.id as string;
+    const live = async () => (await db.select().from(timeEntries).where(and(eq(timeEntries.pieceId, hat.id), isNull(timeEntries.deletedAt)))).length;
+    expect((await call(deleteEntryRoute, jars.assistant, "/x", "DELETE", entryId)).status).toBe(200);
+    expect(await live()).toBe(0);
+    expect((await call(postRestore, jars.outsider, "/x", "POST", entryId)).status).toBe(404);
+    const back = await call(postRestore, jars.assistant, "/x", "POST", entryId);
+    expect(back.status).toBe(200);
+    expect(back.body.entry.minutes).toBe(45);
+    expect(await live()).toBe(1);
+    // A second undo (a double click) changes nothing.
+    expect((await call(postRestore, jars.assistant, "/x", "POST", entryId)).status).toBe(200);
+    expect(await live()).toBe(1);
+    // Deleted long ago: refused with a reason, the entry stays deleted.
+    await call(deleteEntryRoute, jars.assistant, "/x", "DELETE", entryId);
+    await db.update(timeEntries).set({ deletedAt: new Date(Date.now() - 31 * 60_000) }).where(eq(timeEntries.id, entryId));
+    const late = await call(postRestore, jars.assistant, "/x", "POST", entryId);
+    expect(late.status).toBe(409);
+    expect(late.body.error.message).toMatch(/within 30 minutes/);
+    expect(await live()).toBe(0);
+    const audit = await db.select().from(timeEntryEdits).where(eq(timeEntryEdits.entryId, entryId));
+    expect(audit.map((a) => a.after)).toContainEqual(expect.objectContaining({ minutes: 45 }));
   });
 });
 
