@@ -86,7 +86,14 @@ export async function StudioMoneySection({ actor, commissionId }: { actor: Actor
             Work has reached <strong>{refund.stage}</strong>. Under the studio&apos;s policy {formatMoney(refund.toRefund, refund.currency)} of the{" "}
             {formatMoney(refund.paidMinor, refund.currency)} held would go back to the client.
           </p>
-          <ActionForm action={refundAction} hidden={{ commissionId: c.id }} label="Refund by the policy" variant="secondary" name="Refund by the policy">
+          <ActionForm
+            action={refundAction}
+            hidden={{ commissionId: c.id }}
+            label="Refund by the policy"
+            variant="secondary"
+            name="Refund by the policy"
+            confirm={`Send ${formatMoney(refund.toRefund, refund.currency)} back to the client now? A refund cannot be taken back.`}
+          >
             <label className="flex items-center gap-2">
               <input type="checkbox" name="cancel" /> Also cancel the commission
             </label>
