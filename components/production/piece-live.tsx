@@ -2,7 +2,7 @@
 // One piece: estimate vs logged per stage (live), its timer, manual entries and corrections.
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { useId, useState } from "react";
+import { useEffect, useId, useRef, useState, type ReactNode } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { Button } from "@/components/ui/button";
@@ -63,11 +63,16 @@ export function PieceLive({ initial, me, isOwner, today }: { initial: PieceDetai
     onSuccess: refresh,
     onError,
   });
+  // A refused correction is shown at its entry (on a phone the page top is far away).
+  const [fixError, setFixError] = useState<{ id: string; message: string } | null>(null);
   const fix = useMutation({
     mutationFn: (v: { id: string; minutes: number; confirm?: boolean }) => api(`/api/production/entries/${v.id}`, { method: "PATCH", body: { minutes: v.minutes, confirm: v.confirm } }),
-    onMutate: () => setError(null),
+    onMutate: () => {
+      setError(null);
+      setFixError(null);
+    },
     onSuccess: refresh,
-    onError,
+    onError: (e: Error, v) => setFixError({ id: v.id, message: e instanceof ApiError && e.fieldErrors?.minutes?.[0] ? `${e.message} ${e.fieldErrors.minutes[0]}` : e.message }),
   });
   // A deleted entry can be brought back for a while (the server keeps it, marked deleted).
   const [undoable, setUndoable] = useState<{ id: string; text: string } | null>(null);
@@ -93,7 +98,11 @@ export function PieceLive({ initial, me, isOwner, today }: { initial: PieceDetai
 
   return (
     <div className="flex flex-col gap-6">
-      {error ? <Notice tone="error">{error}</Notice> : null}
+      {error ? (
+        <RevealOnShow key={error}>
+          <Notice tone="error">{error}</Notice>
+        </RevealOnShow>
+      ) : null}
       <div aria-live="polite">
         {undoable ? (
           <p className="flex flex-wrap items-center gap-3 rounded-md border border-bark/20 bg-white p-3">
@@ -198,7 +207,7 @@ export function PieceLive({ initial, me, isOwner, today }: { initial: PieceDetai
                 <p className="mt-1 font-semibold text-madder-dark">{FLAG_LABELS[e.flag as TimerFlag] ?? e.flag}; not counted until confirmed.</p>
               ) : null}
               {!e.running && (e.userId === me || isOwner) ? (
-                <EntryEdit entry={e} onSave={(minutes, confirm) => fix.mutate({ id: e.id, minutes, confirm })} onDelete={() => remove.mutate({ id: e.id, text: `${formatMinutes(e.minutes)} of ${(WORK_STAGE_LABELS[e.stage as WorkStageName] ?? e.stage).toLowerCase()}` })} busy={fix.isPending || remove.isPending} />
+                <EntryEdit entry={e} onSave={(minutes, confirm) => fix.mutate({ id: e.id, minutes, confirm })} error={fixError?.id === e.id ? fixError.message : null} onDelete={() => remove.mutate({ id: e.id, text: `${formatMinutes(e.minutes)} of ${(WORK_STAGE_LABELS[e.stage as WorkStageName] ?? e.stage).toLowerCase()}` })} busy={fix.isPending || remove.isPending} />
               ) : null}
             </li>
           ))}
@@ -208,7 +217,28 @@ export function PieceLive({ initial, me, isOwner, today }: { initial: PieceDetai
   );
 }
 
-function EntryEdit({ entry, onSave, onDelete, busy }: { entry: PieceDetail["entries"][number]; onSave: (m: number, confirm?: boolean) => void; onDelete: () => void; busy: boolean }) {
+/** Brings a message that just appeared into view (the page may be scrolled far from it). */
+function RevealOnShow({ children }: { children: ReactNode }) {
+  const ref = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    ref.current?.scrollIntoView?.({ block: "center", behavior: "smooth" });
+  }, []);
+  return <div ref={ref}>{children}</div>;
+}
+
+function EntryEdit({
+  entry,
+  onSave,
+  onDelete,
+  busy,
+  error,
+}: {
+  entry: PieceDetail["entries"][number];
+  onSave: (m: number, confirm?: boolean) => void;
+  onDelete: () => void;
+  busy: boolean;
+  error: string | null;
+}) {
   const [minutes, setMinutes] = useState(String(entry.minutes));
   const id = useId();
   const n = Number(minutes);
@@ -231,6 +261,15 @@ function EntryEdit({ entry, onSave, onDelete, busy }: { entry: PieceDetail["entr
         onConfirm={onDelete}
       />
       {!valid ? <p className="w-full text-sm text-madder-dark" role="alert">Use whole minutes from 1 to 1440.</p> : null}
+      {error ? (
+        <div className="w-full" data-testid="entry-error">
+          <RevealOnShow key={error}>
+            <p className="text-sm font-semibold text-madder-dark" role="alert">
+              {error}
+            </p>
+          </RevealOnShow>
+        </div>
+      ) : null}
     </div>
   );
 }

@@ -92,5 +92,32 @@ describe("logging hours", () => {
       await expect.poll(() => page.getByText("Tobias Venn", { exact: false }).count(), POLL).toBeGreaterThan(0);
       await expectAccessible(page);
     });
+
+    // On the phone, a refused correction is shown at the entry, on screen, not at the top of the page.
+    await withPage(
+      browser,
+      "production-correction-phone",
+      async (page) => {
+        await signInAs(page, "tobias@hollin.test");
+        await page.waitForURL(`${BASE}/studio`);
+        await page.goto("/studio/board");
+        await page.getByRole("link", { name: "Hat", exact: true }).first().click();
+        await page.waitForURL(/\/studio\/pieces\//);
+        const entry = page.locator("li", { has: page.getByRole("button", { name: "Save correction" }) }).first();
+        await entry.scrollIntoViewIfNeeded();
+        // The timer entry just logged ended a moment ago: ten hours more would end in the future.
+        await entry.getByLabel("Minutes").fill("600");
+        await entry.getByRole("button", { name: "Save correction" }).click();
+        const message = entry.getByTestId("entry-error");
+        await expect.poll(() => message.textContent(), POLL).toMatch(/future|overlaps/i);
+        await expect.poll(async () => {
+          const box = await message.boundingBox();
+          return box !== null && box.y >= 0 && box.y + box.height <= 844;
+        }, POLL).toBe(true);
+        await page.screenshot({ path: "test-results/e2e/correction-refused-phone.png" });
+        await expectAccessible(page);
+      },
+      PHONE,
+    );
   });
 });
