@@ -6,6 +6,7 @@ import { asClient, type Actor } from "@/lib/server/authz";
 import { documentLabel, listCommissionPayments, listDocumentsFor } from "@/lib/server/payments";
 import { listQuotesFor, quoteOf, todayIso } from "@/lib/server/quotes";
 import { ActionForm } from "./action-form";
+import { AwaitPayment } from "./await-payment";
 import { payAction } from "./money-actions";
 import { QuoteAnswerForms } from "./quote-answer-forms";
 import { QuoteLines } from "./quote-lines";
@@ -65,7 +66,9 @@ export async function PortalMoneySection({ actor, commissionId, returned }: { ac
                   {kind === "deposit" ? "Deposit" : "Balance"}: {formatMoney(p!.amountMinor, p!.currency)} —{" "}
                   <strong>{PAID.has(p!.status) ? `paid${p!.refundedMinor ? `, ${formatMoney(p!.refundedMinor, p!.currency)} refunded` : ""}` : p!.status === "failed" ? "not paid (the card was declined)" : "due"}</strong>
                 </span>
-                {!PAID.has(p!.status) ? (
+                {/* Back from paying this one: wait for the confirmation instead of offering to pay again. */}
+                {!PAID.has(p!.status) && returned === `paid:${kind}` ? <AwaitPayment commissionId={commissionId} kind={kind} /> : null}
+                {!PAID.has(p!.status) && returned !== `paid:${kind}` ? (
                   <ActionForm action={payAction} hidden={{ commissionId, kind }} label={kind === "deposit" ? "Pay the deposit" : "Pay the balance"} name={`Pay the ${kind}`} />
                 ) : null}
               </li>

@@ -40,12 +40,12 @@ async function payOnHostedPage(page: Page, id: string, kind: "deposit" | "balanc
   await expectAccessible(page);
   await page.getByRole("button", { name: /^Pay / }).click();
   await page.waitForURL(new RegExp(`/portal/commissions/${id}\\?paid=${kind}`));
-  // Paid only once the signed webhook has reached the app; the return address proves nothing.
+  // Back from paying, the page does not offer to pay again while it waits for the confirmation.
+  expect(await page.getByRole("button", { name: `Pay the ${kind}` }).count()).toBe(0);
+  // Paid only once the signed webhook has reached the app (the return address proves nothing); the
+  // page asks the server by itself and refreshes when it has, with no reload.
   await expect
-    .poll(async () => {
-      await page.reload();
-      return page.getByText(new RegExp(`${kind === "deposit" ? "Deposit" : "Balance"}: .* — paid`)).count();
-    }, { timeout: 30_000, interval: 500 })
+    .poll(() => page.getByText(new RegExp(`${kind === "deposit" ? "Deposit" : "Balance"}: .* — paid`)).count(), { timeout: 30_000, interval: 500 })
     .toBe(1);
 }
 

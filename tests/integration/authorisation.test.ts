@@ -1,5 +1,6 @@
 import { and, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, test } from "vitest";
+import { GET as getPaymentState } from "@/app/api/commissions/[id]/payments/route";
 import { GET as getOne } from "@/app/api/commissions/[id]/route";
 import { PUT as putPrice } from "@/app/api/commissions/[id]/price/route";
 import { GET as list } from "@/app/api/commissions/route";
@@ -57,6 +58,15 @@ describe("who sees what (route handlers and queries)", () => {
     expect(res.status).toBe(404);
     expect(res.body.error.message).not.toContain(w.commissionB);
     expect((await getJson(jars.a, w.commissionA)).status).toBe(200);
+  });
+
+  test("the payment state the portal polls: the commission's own client only", async () => {
+    const state = async (jar: Jar | null, id: string) => (await getPaymentState(requestWith(jar, `/api/commissions/${id}/payments`), ctx(id))).status;
+    expect(await state(jars.a, w.commissionA)).toBe(200);
+    expect(await state(jars.a, w.commissionB)).toBe(404);
+    expect(await state(jars.outsider, w.commissionA)).toBe(404);
+    expect(await state(null, w.commissionA)).toBe(401);
+    expect(await state(jars.a, "not-a-uuid")).toBe(422);
   });
 
   test("a member of another studio cannot read this studio's commissions", async () => {

@@ -18,7 +18,8 @@ export default async function PortalCommissionPage({
 }) {
   const { id } = await params;
   const sp = await searchParams;
-  const returned = sp.cancelled ? "cancelled" : sp.paid ? "paid" : undefined;
+  // Back from the pay page: `?paid=deposit|balance` (anything else is ignored) or `?cancelled=…`.
+  const returned = sp.cancelled ? "cancelled" : sp.paid === "deposit" || sp.paid === "balance" ? `paid:${sp.paid}` : undefined;
   const actor = await requirePageActor(`/portal/commissions/${id}`);
   const client = asClient(actor);
   const c = await getCommissionFor(client, id).catch(() => null);
