@@ -3,7 +3,7 @@ import { useActionState } from "react";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { idleState, type ActionState } from "@/lib/action-state";
-import { STATE_LABELS, type CommissionState, type Move } from "@/lib/core/workflow";
+import { STATE_LABELS, clientFacingState, moveLabelFor, type CommissionState, type Move } from "@/lib/core/workflow";
 import { moveCommissionAction } from "./move-action";
 
 const NEEDS_REASON: ReadonlySet<Move> = new Set<Move>(["decline", "cancel", "pause", "rework"]);
@@ -14,12 +14,14 @@ export type PanelMove = { move: Move; label: string; ok: true; to: CommissionSta
 function MoveForm({ commissionId, m, as }: { commissionId: string; m: PanelMove; as: "studio" | "client" }) {
   const [state, action, pending] = useActionState<ActionState<{ to: CommissionState }>, FormData>(moveCommissionAction, idleState);
   const reasonId = `reason-${m.move}`;
+  const label = moveLabelFor(m.move, as);
+  const stateWord = (to: CommissionState) => STATE_LABELS[as === "client" ? clientFacingState(to) : to];
   return (
     <form
       action={action}
       className="flex flex-col gap-2 rounded-md border border-bark/20 p-3"
       onSubmit={(e) => {
-        if (DESTRUCTIVE.has(m.move) && !window.confirm(`${m.label}? This cannot be undone.`)) e.preventDefault();
+        if (DESTRUCTIVE.has(m.move) && !window.confirm(`${label}? This cannot be undone.`)) e.preventDefault();
       }}
     >
       <input type="hidden" name="commissionId" value={commissionId} />
@@ -35,9 +37,9 @@ function MoveForm({ commissionId, m, as }: { commissionId: string; m: PanelMove;
       ) : null}
       <div className="flex flex-wrap items-center gap-3">
         <Button type="submit" variant={DESTRUCTIVE.has(m.move) ? "secondary" : "primary"} disabled={!m.ok || pending} aria-describedby={m.ok ? undefined : `why-${m.move}`}>
-          {m.label}
+          {label}
         </Button>
-        {m.ok ? <span className="text-sm text-bark">→ {STATE_LABELS[m.to]}</span> : null}
+        {m.ok ? <span className="text-sm text-bark">Afterwards it shows as “{stateWord(m.to)}”.</span> : null}
       </div>
       {!m.ok ? (
         <p id={`why-${m.move}`} className="text-sm text-bark">
@@ -45,7 +47,7 @@ function MoveForm({ commissionId, m, as }: { commissionId: string; m: PanelMove;
         </p>
       ) : null}
       {state.status === "error" ? <Notice tone="error">{state.message}</Notice> : null}
-      {state.status === "ok" ? <Notice tone="success">Done: now “{STATE_LABELS[state.data.to]}”.</Notice> : null}
+      {state.status === "ok" ? <Notice tone="success">Done: it now shows as “{stateWord(state.data.to)}”.</Notice> : null}
     </form>
   );
 }

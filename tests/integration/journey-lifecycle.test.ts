@@ -24,12 +24,12 @@ describe("life cycle on the commission pages", () => {
     await moveCommission(assistant, w.commissionA, "start_quote");
     await moveCommission(client, w.commissionA, "decline", { reason: "Found some in a shop" });
     const studioView = await getLifecycleTimeline(owner, w.commissionA, false);
-    expect(studioView.map((e) => e.title)).toEqual(["Start quote → Preparing quote", "Decline → Declined"]);
+    expect(studioView.map((e) => e.title)).toEqual(["Quote started", "Declined"]);
     expect(studioView[0].who).toMatch(/\(assistant\)$/);
     expect(studioView[1].reason).toBe("Found some in a shop");
     // The client does not see the studio's "preparing quote" step, and is "You".
     const clientView = await getLifecycleTimeline(client, w.commissionA, true);
-    expect(clientView.map((e) => [e.title, e.who])).toEqual([["Decline → Declined", "You"]]);
+    expect(clientView.map((e) => [e.title, e.who])).toEqual([["Declined", "You"]]);
     expect(await names(owner)).toEqual(["reopen_request"]);
     expect(await names(client)).toEqual([]);
   });

@@ -58,6 +58,48 @@ export const MOVE_LABELS: Record<Move, string> = {
   reopen_request: "Reopen request",
 };
 
+/** Button wording for the client, where the studio's word would read oddly to them. */
+export const CLIENT_MOVE_LABELS: Partial<Record<Move, string>> = {
+  revise_quote: "Ask for a different quote",
+  accept_quote: "Accept the quote",
+  request_changes: "Ask for changes to the design",
+  approve_proof: "Approve the design",
+  confirm_delivery: "It has arrived",
+  decline: "Withdraw my request",
+  cancel: "Cancel my commission",
+};
+
+export function moveLabelFor(move: Move, as: "studio" | "client"): string {
+  return (as === "client" ? CLIENT_MOVE_LABELS[move] : undefined) ?? MOVE_LABELS[move];
+}
+
+/** What happened, for the timeline ("Quote accepted"), rather than the button that did it. */
+export const MOVE_DONE: Record<Move, string> = {
+  start_quote: "Quote started",
+  send_quote: "Quote sent",
+  revise_quote: "Quote reopened for changes",
+  accept_quote: "Quote accepted",
+  record_deposit: "Deposit received: booked",
+  expire_quote: "Quote expired",
+  start_design: "Design started",
+  send_proof: "Design proof sent",
+  request_changes: "Changes asked for",
+  approve_proof: "Design approved",
+  reopen_quote: "New quote version started",
+  start_production: "Knitting started",
+  mark_ready: "Ready",
+  rework: "Back in production",
+  record_balance: "Balance received",
+  ship: "Shipped",
+  confirm_delivery: "Delivered",
+  close: "Closed",
+  decline: "Declined",
+  cancel: "Cancelled",
+  pause: "Put on hold",
+  resume: "Resumed",
+  reopen_request: "Request reopened",
+};
+
 /** What the move does, as it reads after "Only … can" and "Cannot …". */
 export const MOVE_PHRASES: Record<Move, string> = {
   start_quote: "start a quote",

@@ -4,7 +4,7 @@ import "server-only";
 import { asc, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { commissionEvents, user } from "@/db/schema";
-import { MOVE_LABELS, STATE_LABELS, clientFacingState, isMove, movesFrom, type AvailableMove, type Move } from "@/lib/core/workflow";
+import { MOVE_DONE, STATE_LABELS, clientFacingState, isMove, movesFrom, type AvailableMove, type Move } from "@/lib/core/workflow";
 import type { Actor } from "../authz";
 import { moveContextFor, roleOn } from "../workflow";
 import { getCommissionFor } from "./commissions";
@@ -62,7 +62,7 @@ export async function getLifecycleTimeline(actor: Actor, commissionId: string, f
     else if (e.toState) {
       const to = forClient ? clientFacingState(e.toState) : e.toState;
       if (forClient && e.fromState && clientFacingState(e.fromState) === to && move !== "accept_quote") continue;
-      title = move ? `${MOVE_LABELS[move]} → ${STATE_LABELS[to]}` : STATE_LABELS[to];
+      title = move ? MOVE_DONE[move] : STATE_LABELS[to];
     } else if (forClient) continue;
     else title = e.kind.replace(/_/g, " ");
     if (forClient && e.kind === "price_set") continue;
