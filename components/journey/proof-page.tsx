@@ -143,9 +143,22 @@ export function ProofPage({ view, mode, base }: { view: View; mode: "client" | "
         <dl className="grid grid-cols-1 gap-x-6 gap-y-1 sm:grid-cols-[12rem_1fr]">
           <dt className="font-semibold text-bark">Quote</dt>
           <dd>{view.quote ? `Version ${view.quote.number}, ${formatMinor(view.quote.totalMinor, view.quote.currency)}` : "No quote version attached"}</dd>
-          <dt className="font-semibold text-bark">Proof fingerprint</dt>
-          <dd className="break-all font-mono text-sm">{proof.contentHash}</dd>
+          {mode === "studio" ? (
+            <>
+              <dt className="font-semibold text-bark">Proof fingerprint</dt>
+              <dd className="break-all font-mono text-sm">{proof.contentHash}</dd>
+            </>
+          ) : null}
         </dl>
+        {mode === "client" ? (
+          <details className="mt-3 text-sm text-bark">
+            <summary>Technical details</summary>
+            <p className="mt-1">
+              This proof&apos;s fingerprint, recorded with your approval so both sides know exactly which design was approved:{" "}
+              <span className="break-all font-mono">{proof.contentHash}</span>
+            </p>
+          </details>
+        ) : null}
         {view.proofs.length > 1 ? (
           <>
             <h3 className="mb-1 mt-4 text-lg">All proofs</h3>
