@@ -1,7 +1,15 @@
 import { STATE_LABELS, type CommissionState } from "@/lib/core/workflow/states";
 import type { CommissionBrief } from "@/db/schema";
+import { MOTIFS } from "@/lib/core/chart/motifs";
 import { formatDay, formatMinor, GARMENT_LABELS, WEARER_LABELS } from "@/lib/format";
+import { MEASUREMENT_LABELS } from "@/lib/schemas/request";
 import { StateBadge } from "./state-badge";
+
+/** "handLengthCm" → "Hand length, wrist to fingertip" (the words the request form used). */
+function measurementWords(key: string): string {
+  const name = key.replace(/Cm$/, "") as keyof typeof MEASUREMENT_LABELS;
+  return MEASUREMENT_LABELS[name] ?? name.replace(/([a-z])([A-Z])/g, "$1 $2").toLowerCase().replace(/^./, (ch) => ch.toUpperCase());
+}
 
 export function CommissionSummary({
   c,
@@ -26,10 +34,10 @@ export function CommissionSummary({
   ];
   if (c.brief.sizeLabel) rows.push(["Size", c.brief.sizeLabel]);
   if (c.brief.measurements)
-    rows.push(["Measurements", Object.entries(c.brief.measurements).map(([k, v]) => `${k.replace(/Cm$/, "")}: ${v} cm`).join(", ")]);
+    rows.push(["Measurements", Object.entries(c.brief.measurements).map(([k, v]) => `${measurementWords(k)}: ${v} cm`).join("; ")]);
   if (c.brief.lettering) rows.push(["Lettering", c.brief.lettering]);
   if (c.brief.colourWishes) rows.push(["Colours", c.brief.colourWishes]);
-  if (c.brief.motifWishes?.length) rows.push(["Motifs", c.brief.motifWishes.join(", ")]);
+  if (c.brief.motifWishes?.length) rows.push(["Motifs", c.brief.motifWishes.map((id) => MOTIFS.find((m) => m.id === id)?.name ?? id).join(", ")]);
   if (c.brief.notes) rows.push(["Notes", c.brief.notes]);
   return (
     <dl className="grid grid-cols-1 gap-x-6 gap-y-2 sm:grid-cols-[10rem_1fr]">

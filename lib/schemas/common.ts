@@ -2,6 +2,7 @@
 // One rule for text everywhere: a NUL (U+0000) or a lone UTF-16 surrogate is REFUSED with a field
 // error (422), never stripped silently; PostgreSQL cannot store either in text or jsonb.
 import { z } from "zod";
+import "./error-words";
 
 /** Dates outside this window are typing slips (or probes), not dates this product plans with. */
 export const MIN_YEAR = 2000;
