@@ -13,9 +13,10 @@ const s = StyleSheet.create({
   bullet: { width: 12 },
   text: { flex: 1 },
   footer: { marginTop: 18, fontSize: 9, color: "#5A4F45" },
-  caution: { marginBottom: 5 },
+  // Compact: a child's card can carry seven cautions, and the card should stay short.
+  caution: { marginBottom: 4, fontSize: 9.5, lineHeight: 1.35 },
   cautionTitle: { fontWeight: 700 },
-  source: { fontSize: 8.5, color: "#5A4F45" },
+  source: { fontSize: 7.5, color: "#5A4F45" },
 });
 
 export interface CareCardProps {
