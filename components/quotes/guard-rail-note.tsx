@@ -8,7 +8,7 @@ export function GuardRailNote({ warnings, field }: { warnings: GuardRailWarning[
     <span role="status" className="block">
       {w ? (
         <span className="mt-1 block rounded border-l-4 border-[#B7791F] bg-[#FFF8E6] px-2 py-1 font-semibold text-peat" data-testid={`guard-rail-${field}`}>
-          Unusual: {w.message}
+          {w.message}
         </span>
       ) : null}
     </span>
