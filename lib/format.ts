@@ -12,4 +12,5 @@ export function formatDay(iso: string | null | undefined, locale = "en-GB"): str
 }
 
 export const GARMENT_LABELS: Record<string, string> = { mittens: "Mittens", hat: "Hat", pullover: "Pullover" };
-export const WEARER_LABELS: Record<string, string> = { adult: "Adult", teen: "Teen", child: "Child", baby: "Baby" };
+// The age bands the cautions go by (lib/core/safety WEARER_BANDS), in short.
+export const WEARER_LABELS: Record<string, string> = { adult: "Adult", teen: "Older child (7–14)", child: "Young child (1–6)", baby: "Baby (under 1)" };

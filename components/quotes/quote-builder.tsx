@@ -6,6 +6,8 @@ import { useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { GuardRailNote } from "./guard-rail-note";
+import { getGuardRailWarnings } from "@/lib/core/pricing/guard-rails";
 import { DesignYarnPanel, type DesignYarnPanelData } from "./design-yarn-panel";
 import { FEATURE_FIELDS } from "./feature-fields";
 import type { PieceFeatures } from "@/lib/core/labour/piece-features";
@@ -112,6 +114,11 @@ export function QuoteBuilder(props: {
     }
   }
   const m = (n: number) => formatMoney(n, cur);
+  // A typed rush fee above the labour it speeds up is allowed, with a word (lib/core/pricing/guard-rails.ts).
+  const typedRushMinor = money.rushFee.trim() ? parse(money.rushFee) : null;
+  const labourMinor = preview ? preview.quote.lines.filter((l) => l.kind === "labour").reduce((sum, l) => sum + l.amountMinor, 0) : null;
+  const depositWarnings = preview ? getGuardRailWarnings({ depositPpm: preview.quote.depositPpm }) : [];
+  const rushWarnings = typedRushMinor !== null && labourMinor !== null ? getGuardRailWarnings({ rushFee: { feeMinor: typedRushMinor, labourMinor } }) : [];
 
   const setFeature = (i: number, key: keyof PieceFeatures, value: string | boolean) =>
     setPieces((ps) => ps.map((p, j) => (j === i ? { ...p, [key]: typeof value === "boolean" ? value : value === "" ? 0 : Math.max(0, Number(value)) } : p)));
@@ -304,7 +311,15 @@ export function QuoteBuilder(props: {
             label="Earliest date we can offer"
             hint={`A rush fee applies when the client needs it sooner.${props.scheduleEarliest ? ` The schedule can promise ${props.scheduleEarliest} after the work already booked (shipping not included).` : ""}`}
             type="date" value={earliestDate} onChange={(e) => setEarliestDate(e.target.value)} />
-          <Field label={`Rush fee (${cur})`} hint="Empty: a quarter of the labour." inputMode="decimal" value={money.rushFee} onChange={(e) => setMoney({ ...money, rushFee: e.target.value })} errors={moneyErrors.rushFee ? [moneyErrors.rushFee] : undefined} />
+          <Field
+            label={`Rush fee (${cur})`}
+            hint={
+              <>
+                Empty: a quarter of the labour.
+                <GuardRailNote field="rushFee" warnings={rushWarnings} />
+              </>
+            }
+            inputMode="decimal" value={money.rushFee} onChange={(e) => setMoney({ ...money, rushFee: e.target.value })} errors={moneyErrors.rushFee ? [moneyErrors.rushFee] : undefined} />
           <Field label="Quote valid until" hint="Empty: the studio's default." type="date" value={validUntil} onChange={(e) => setValidUntil(e.target.value)} errors={fe.validUntil} />
         </fieldset>
 
@@ -389,6 +404,13 @@ export function QuoteBuilder(props: {
                     </th>
                     <td className="text-right tabular-nums">{m(preview.quote.depositMinor)}</td>
                   </tr>
+                  {depositWarnings.length ? (
+                    <tr>
+                      <td colSpan={2} className="text-sm">
+                        <GuardRailNote field="depositPercent" warnings={depositWarnings} /> (The deposit share is set in the studio settings.)
+                      </td>
+                    </tr>
+                  ) : null}
                   <tr>
                     <th scope="row" className="text-left font-normal">
                       Balance

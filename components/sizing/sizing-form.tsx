@@ -9,12 +9,11 @@ import { useForm } from "react-hook-form";
 import { ApiError, api } from "@/components/production/api";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
-import { CHILD_SAFETY } from "@/lib/core/production/care";
+import { CautionList } from "@/components/safety/caution-list";
+import { getAgeBand, getCautions } from "@/lib/core/safety";
 import { EASE_CATEGORIES, MEASUREMENT_SPECS, STANDARD_SIZES, cmToIn, getStandardMeasurements, type SizingResult } from "@/lib/core/sizing";
 import { YARN_WEIGHTS, getNeedleSize } from "@/lib/core/yarn";
 import { coreGarment, lengthFields, sizeForm, sizingFormSchema, type SizingFormValues } from "@/lib/schemas/sizing";
-
-const CHILD_SIZES = new Set(["newborn", "baby", "toddler", "child"]);
 
 const words = (key: string) => key.replace(/([a-z])([A-Z0-9])/g, "$1 $2").toLowerCase();
 const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
@@ -52,6 +51,8 @@ export function SizingForm(props: {
   commissionId: string;
   garment: "mittens" | "hat" | "pullover";
   wearer: "adult" | "teen" | "child" | "baby";
+  /** the fibres of the commission's yarns (or the studio's), for the fibre cautions */
+  fibres: string[];
   initial: SizingFormValues;
   saved: boolean;
   canEdit: boolean;
@@ -122,7 +123,8 @@ export function SizingForm(props: {
   };
 
   const weight = values.yarnCategory === "" ? null : YARN_WEIGHTS.categories.find((c) => String(c.category) === values.yarnCategory) ?? null;
-  const forChild = props.wearer === "child" || props.wearer === "baby" || CHILD_SIZES.has(values.size);
+  // The wearer's band, made stricter by a child's standard size when one is chosen.
+  const cautions = getCautions({ garment, ageBand: getAgeBand({ wearer: props.wearer, sizeKey: values.size }), fibres: props.fibres });
 
   return (
     <div className="grid gap-6 lg:grid-cols-2">
@@ -272,13 +274,7 @@ export function SizingForm(props: {
 
       <section aria-labelledby={`${base}-out`} aria-live="polite" className="flex min-w-0 flex-col gap-4">
         <h2 id={`${base}-out`} className="text-xl">What to knit</h2>
-        {forChild ? (
-          <Notice tone="info" title="For a child">
-            <ul className="list-disc pl-5">
-              {CHILD_SAFETY.map((l) => <li key={l}>{l}</li>)}
-            </ul>
-          </Notice>
-        ) : null}
+        <CautionList cautions={cautions} title="Cautions for this piece" />
         {live.result ? <SizingOutput result={live.result} unit={unit} /> : <p className="text-bark">Fill in the fields marked above to see the stitch counts.</p>}
       </section>
     </div>

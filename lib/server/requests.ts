@@ -205,10 +205,10 @@ export async function finishDraft(actor: Actor, studioId: string, token: string 
   }
 }
 
-/** The studio's colours as the public request form offers them (name and hex only). */
+/** The studio's colours as the public request form offers them (name, hex, and the fibre its cautions go by). */
 export async function listStudioColours(studioId: string) {
   return db
-    .select({ id: yarns.id, colourName: yarns.colourName, hex: yarns.hex, name: yarns.name })
+    .select({ id: yarns.id, colourName: yarns.colourName, hex: yarns.hex, name: yarns.name, fibre: yarns.fibre })
     .from(yarns)
     .where(eq(yarns.studioId, studioId))
     .orderBy(yarns.colourName);

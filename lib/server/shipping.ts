@@ -3,7 +3,7 @@ import "server-only";
 import { eq, inArray } from "drizzle-orm";
 import { db } from "@/db";
 import { commissions, shipments, studios, yarnReservations, yarns } from "@/db/schema";
-import { getCareCard, type Wearer } from "@/lib/core/production";
+import { getCareCard } from "@/lib/core/production";
 import { env } from "@/lib/env";
 import { CareCardDocument } from "@/templates/pdf/care-card";
 import { shippedMessage } from "@/templates/email/production";
@@ -47,20 +47,28 @@ export async function getShipments(actor: Actor, commissionId: string) {
   return db.select().from(shipments).where(eq(shipments.commissionId, c.id));
 }
 
+/**
+ * The fibres a commission's cautions and care go by: its reserved yarns, or with none reserved
+ * the studio's usual yarns (the demo studio knits wool only). Callers have checked access.
+ */
+export async function getCommissionFibres(c: { id: string; studioId: string }): Promise<{ fibres: string[]; reserved: (typeof yarns.$inferSelect)[] }> {
+  const held = await db.select({ yarnId: yarnReservations.yarnId }).from(yarnReservations).where(eq(yarnReservations.commissionId, c.id));
+  const reserved = held.length ? await db.select().from(yarns).where(inArray(yarns.id, held.map((r) => r.yarnId))) : [];
+  const fibres = reserved.length
+    ? reserved.map((y) => y.fibre)
+    : (await db.select({ fibre: yarns.fibre }).from(yarns).where(eq(yarns.studioId, c.studioId)).limit(20)).map((y) => y.fibre);
+  return { fibres, reserved };
+}
+
 /** The care card PDF for a commission the actor may see (its studio, or its own client). */
 export async function renderCareCard(actor: Actor, commissionId: string): Promise<{ pdf: Buffer; filename: string }> {
   const c = await getCommissionFor(actor, commissionId);
-  const [row] = await db.select({ wearer: commissions.wearer }).from(commissions).where(eq(commissions.id, c.id));
-  const reserved = await db.select({ yarnId: yarnReservations.yarnId }).from(yarnReservations).where(eq(yarnReservations.commissionId, c.id));
-  const yarnRows = reserved.length
-    ? await db.select().from(yarns).where(inArray(yarns.id, reserved.map((r) => r.yarnId)))
-    : [];
+  const [row] = await db.select({ wearer: commissions.wearer, garment: commissions.garment, sizing: commissions.sizing }).from(commissions).where(eq(commissions.id, c.id));
+  const { fibres, reserved: yarnRows } = await getCommissionFibres(c);
   const [studio] = await db.select().from(studios).where(eq(studios.id, c.studioId));
-  // With no yarn reserved, the studio's usual yarns decide (the demo studio knits wool only).
-  const fibres = yarnRows.length
-    ? yarnRows.map((y) => y.fibre)
-    : (await db.select({ fibre: yarns.fibre }).from(yarns).where(eq(yarns.studioId, c.studioId)).limit(20)).map((y) => y.fibre);
-  const card = getCareCard({ fibres, wearer: (row?.wearer ?? "adult") as Wearer });
+  // A standard child's size chosen in the sizing form can only make the cautions stricter.
+  const sizeKey = typeof row?.sizing?.size === "string" ? row.sizing.size : null;
+  const card = getCareCard({ fibres, wearer: row?.wearer ?? "adult", garment: row?.garment ?? "pullover", sizeKey });
   const pdf = await renderPdf(
     CareCardDocument({
       studio: { name: studio.name, contactEmail: studio.contactEmail, brandHex: studio.brandHex },

@@ -8,6 +8,7 @@ import { getSizeKeys, type SizingResult } from "@/lib/core/sizing";
 import { DEFAULT_SIZING_GAUGE, coreGarment, defaultSizingForm, sizeForm, sizingFormSchema, type SizingFormValues } from "@/lib/schemas/sizing";
 import { assertCan, type Actor } from "./authz";
 import { sizeFromBrief } from "./design-sizes";
+import { getCommissionFibres } from "./shipping";
 import { AppError, validationError } from "./errors";
 import { getCommissionFor } from "./queries/commissions";
 
@@ -52,7 +53,8 @@ export async function getCommissionSizing(actor: Actor, commissionId: string) {
   const raw = await loadSizing(c.id);
   const saved = savedSizingForm(raw);
   const values = saved ?? defaultSizingForm(c.garment, (c.brief ?? {}) as CommissionBrief, getSizeKeys(coreGarment(c.garment)));
-  return { commission: c, values, saved: saved !== null };
+  const { fibres } = await getCommissionFibres(c);
+  return { commission: c, values, saved: saved !== null, fibres };
 }
 
 /** Owner or assistant: saves the form once it sizes a garment; otherwise 422 with the field's message. */

@@ -1,5 +1,6 @@
 // The care card that goes with a finished piece: washing and drying for its fibre, re-blocking,
-// and for children's pieces the safety cautions. Content comes from lib/core/production/care.ts.
+// and the cautions for its garment, wearer and fibre, each with its source. Content comes from
+// lib/core/production/care.ts (cautions: lib/core/safety).
 import { Document, Page, StyleSheet, Text, View } from "@react-pdf/renderer";
 import type { CareCard } from "@/lib/core/production";
 
@@ -12,6 +13,10 @@ const s = StyleSheet.create({
   bullet: { width: 12 },
   text: { flex: 1 },
   footer: { marginTop: 18, fontSize: 9, color: "#5A4F45" },
+  // Compact: a child's card can carry seven cautions, and the card should stay short.
+  caution: { marginBottom: 4, fontSize: 9.5, lineHeight: 1.35 },
+  cautionTitle: { fontWeight: 700 },
+  source: { fontSize: 7.5, color: "#5A4F45" },
 });
 
 export interface CareCardProps {
@@ -40,6 +45,20 @@ export function CareCardDocument({ studio, piece, card }: CareCardProps) {
             ))}
           </View>
         ))}
+        {card.cautions.length ? (
+          <View>
+            <Text style={s.heading}>{card.ageBand === "adult" ? "Good to know" : "Safety for children"}</Text>
+            {card.cautions.map((c) => (
+              <View key={c.id} style={s.caution} wrap={false}>
+                <Text>
+                  <Text style={s.cautionTitle}>{c.title}. </Text>
+                  {c.text}
+                </Text>
+                <Text style={s.source}>Source: {c.source}.</Text>
+              </View>
+            ))}
+          </View>
+        ) : null}
         <Text style={s.footer}>Questions or a repair? Write to {studio.contactEmail}. Hand-knitted pieces can usually be mended.</Text>
       </Page>
     </Document>

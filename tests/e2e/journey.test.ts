@@ -73,8 +73,10 @@ describe("the commission journey", () => {
     await shot(page, "request", async () => {
       await page.goto("/studios/hollin-knitworks");
       await page.getByLabel("Mittens", { exact: true }).check();
-      await page.getByLabel("A child", { exact: true }).check();
-      await expect.poll(() => page.getByText("EN 14682").count(), POLL).toBeGreaterThan(0);
+      await page.getByLabel("A young child (1 to 6 years)", { exact: true }).check();
+      // The cautions for a young child's mittens: no cord through the sleeves, no EN 14682 claim.
+      await expect.poll(() => page.getByText("No cord through the sleeves").count(), POLL).toBeGreaterThan(0);
+      await expect.poll(() => page.getByText("EN 14682 does not apply to mittens and hats", { exact: false }).count(), POLL).toBeGreaterThan(0);
       await expectAccessible(page);
       await page.getByLabel("Size, if you know it").fill("Child 4–6 years");
       await page.getByLabel("Gull white", { exact: true }).check();

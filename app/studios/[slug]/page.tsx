@@ -89,7 +89,7 @@ export default async function StudioPublicPage({ params }: { params: Promise<{ s
             studioName={studio.name}
             currency={studio.currency}
             makes={studio.makes}
-            colours={colours.map((c) => ({ id: c.id, colourName: c.colourName, hex: c.hex }))}
+            colours={colours.map((c) => ({ id: c.id, colourName: c.colourName, hex: c.hex, fibre: c.fibre }))}
             motifs={MOTIFS.map((m) => ({ id: m.id, name: m.name, kind: getMotifKind(m) }))}
             initial={initial}
             initialPhotos={photoIds.map((id) => ({ id, thumbUrl: `/api/uploads/${id}?size=thumb` }))}

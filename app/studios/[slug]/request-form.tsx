@@ -8,6 +8,8 @@ import { SignUpForm } from "@/components/auth/sign-up-form";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { CautionList } from "@/components/safety/caution-list";
+import { WEARER_BANDS, getAgeBand, getCautions, type CautionGarment } from "@/lib/core/safety";
 import {
   MAX_REFERENCE_PHOTOS,
   MEASUREMENT_LABELS,
@@ -19,14 +21,15 @@ import {
 import { ensureRequestDraft, holdRequestForSignUp, saveRequestDraft, submitRequest } from "./actions";
 
 const GARMENT_NAMES: Record<string, string> = { mittens: "Mittens", hat: "Hat", pullover: "Pullover" };
-const WEARER_NAMES: Record<string, string> = { adult: "An adult", teen: "A teenager", child: "A child", baby: "A baby or toddler" };
+// Labelled in the words of the age bands the cautions go by (lib/core/safety).
+const WEARER_ORDER = ["adult", "teen", "child", "baby"] as const;
 
 export interface RequestFormProps {
   slug: string;
   studioName: string;
   currency: string;
   makes: string[];
-  colours: { id: string; colourName: string; hex: string }[];
+  colours: { id: string; colourName: string; hex: string; fibre: string }[];
   motifs: { id: string; name: string; kind: string }[];
   initial: RequestFormValues;
   initialPhotos: { id: string; thumbUrl: string }[];
@@ -63,6 +66,11 @@ export function RequestForm(props: RequestFormProps) {
   const garment = watch("garment");
   const wearer = watch("wearer");
   const units = watch("units");
+  const yarnIds = watch("yarnIds");
+  // The chosen colours' fibres; with none chosen yet, every fibre the studio offers.
+  const chosen = props.colours.filter((c) => (yarnIds ?? []).includes(c.id));
+  const fibres = [...new Set((chosen.length ? chosen : props.colours).map((c) => c.fibre))];
+  const cautions = (GARMENT_NAMES[garment] ? getCautions({ garment: garment as CautionGarment, ageBand: getAgeBand({ wearer }), fibres }) : []);
 
   const draftReady = () => (ready.current ??= ensureRequestDraft(props.slug));
 
@@ -196,29 +204,17 @@ export function RequestForm(props: RequestFormProps) {
       <fieldset className="flex flex-col gap-2">
         <legend className="mb-1 font-semibold">Who is it for?</legend>
         <div className="flex flex-wrap gap-4">
-          {Object.entries(WEARER_NAMES).map(([w, label]) => (
+          {WEARER_ORDER.map((w) => (
             <label key={w} className="flex items-center gap-2">
-              <input type="radio" value={w} {...register("wearer")} /> {label}
+              <input type="radio" value={w} {...register("wearer")} /> {WEARER_BANDS[w].label}
             </label>
           ))}
         </div>
-        {wearer === "child" || wearer === "baby" ? (
-          <Notice tone="caution" title="Knitting for a young child">
-            <ul className="list-disc pl-5">
-              <li>No cords, ties or drawstrings at the neck or hood.</li>
-              <li>Mitten cords only of a safe kind and short length, and never on a sleeping child.</li>
-              <li>Nothing that can come off and be swallowed: no buttons, pompoms or beads on pieces for small children.</li>
-              <li>
-                Local rules for children&rsquo;s clothing apply, for example EN 14682 in Europe and ASTM F1816 in the United States.
-                We follow these as sources; your local regulations come first.
-              </li>
-            </ul>
-          </Notice>
-        ) : null}
-        <p className="text-sm text-bark">
-          The studio knits in wool. If the wearer has a wool allergy or sensitive skin, say so in the notes and ask about other
-          fibres.
-        </p>
+        <CautionList
+          cautions={cautions}
+          title={wearer === "adult" ? "Good to know" : "Safety notes for this piece"}
+          intro="They follow the garment, the wearer and the colours you choose."
+        />
       </fieldset>
 
       <fieldset className="flex flex-col gap-3">

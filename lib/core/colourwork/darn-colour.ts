@@ -64,7 +64,7 @@ export interface DarningYarn {
   loopCm: number;
 }
 
-/** Yarn in one duplicate stitch ≈ one knitted loop: 4.2 ÷ stitches per cm (Munden 1959, Kw ≈ 4.2). */
+/** Yarn in one duplicate stitch ≈ one knitted loop: 4.2 ÷ stitches per cm (fully relaxed Kw ≈ 4.2: Knapton et al. 1968, geometry after Munden 1959). */
 export function getLoopLengthCm(stitchesPer10cm: number): number {
   return defaultDarningYarn.loopConstantKw / (stitchesPer10cm / 10);
 }

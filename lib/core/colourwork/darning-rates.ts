@@ -32,7 +32,7 @@ export const darningRateSources: Readonly<Record<keyof DarningRates, string>> = 
 export const defaultDarningYarn = Object.freeze({
   /** tail left at each end to weave in, cm (common practice; (memory) for the figure) */
   tailCm: 15,
-  /** relaxed plain-knit constant: loop length × wales per cm ≈ 4.2 (Munden, J. Textile Inst., 1959) */
+  /** fully relaxed plain-knit constant: loop length × wales per cm ≈ 4.2 (later work, e.g. Knapton et al. 1968, as quoted in textile-engineering texts; geometry after Munden, J. Textile Inst., 1959) */
   loopConstantKw: 4.2,
 });
 

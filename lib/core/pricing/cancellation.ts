@@ -1,6 +1,8 @@
 // What a client gets back when a commission is cancelled, by the furthest stage work reached.
+// Integer arithmetic only (bigint minor units, percentages read exactly, parts per million where a
+// percentage has at most 4 decimals), rounded once by the money rule of rounding.ts.
 import { getMinorDigits } from "./currency";
-import { PPM_WHOLE, percentToPpm } from "./decimal";
+import { PPM_WHOLE, parseExactDecimal, percentToPpm } from "./decimal";
 import { assertMinorAmount } from "./build-quote";
 import { PricingInputError } from "./pricing-error";
 import { divideRounded, toSafeMinor } from "./rounding";
@@ -8,8 +10,23 @@ import { divideRounded, toSafeMinor } from "./rounding";
 export const CANCELLATION_STAGES = ["accepted", "design", "knitting", "embroidery", "blocking", "finishing", "ready"] as const;
 export type CancellationStage = (typeof CANCELLATION_STAGES)[number];
 
-/** What the studio keeps: nothing, the deposit, or a share of the quote total. */
-export type CancellationRule = { keep: "nothing" } | { keep: "deposit" } | { keep: "percentOfTotal"; percent: number | string };
+/** What the studio keeps: nothing, the deposit, a share of the deposit, or a share of the quote total. */
+export type CancellationRule =
+  | { keep: "nothing" }
+  | { keep: "deposit" }
+  | { keep: "percentOfDeposit"; percent: number | string }
+  | { keep: "percentOfTotal"; percent: number | string };
+
+/** Most decimals a share of the deposit may have: a settings value typed as a plain decimal fits. */
+export const MAX_SHARE_DECIMALS = 20;
+
+/** round(amount × percent / 100) exactly, for a percent between 0 and 100 with up to MAX_SHARE_DECIMALS decimals. */
+export function shareOfAmount(amountMinor: bigint, percent: number | string, field: string): bigint {
+  const d = parseExactDecimal(percent, field, MAX_SHARE_DECIMALS);
+  const scale = 10n ** BigInt(d.scale);
+  if (d.units < 0n || d.units > 100n * scale) throw new PricingInputError(`${field} must be between 0 and 100 (got ${String(percent)})`);
+  return divideRounded(amountMinor * d.units, 100n * scale);
+}
 
 export type CancellationPolicy = Record<CancellationStage, CancellationRule>;
 
@@ -61,6 +78,7 @@ export function getRefundDue(input: RefundInput): RefundDue {
   let entitled: bigint;
   if (rule.keep === "nothing") entitled = 0n;
   else if (rule.keep === "deposit") entitled = BigInt(input.depositMinor);
+  else if (rule.keep === "percentOfDeposit") entitled = shareOfAmount(BigInt(input.depositMinor), rule.percent, `policy.${input.stageReached}.percent`);
   else entitled = divideRounded(BigInt(input.totalMinor) * percentToPpm(rule.percent, `policy.${input.stageReached}.percent`), PPM_WHOLE);
   const paid = BigInt(input.paidMinor);
   const retained = entitled < paid ? entitled : paid;

@@ -1,9 +1,11 @@
-// What the care card says for a finished piece: washing and drying by fibre, re-blocking, and for
-// children's pieces the safety cautions. Sources for the cautions are named in the text itself;
-// the washing advice is common practice for hand-knitted, wet-blocked pieces (no single standard).
+// What the care card says for a finished piece: washing and drying by fibre, re-blocking, and the
+// cautions for its garment, wearer and fibre (from lib/core/safety, each with its source). The
+// washing advice is common practice for hand-knitted, wet-blocked pieces (no single standard).
+import { ANIMAL_FIBRE as ANIMAL, PLANT_FIBRE as PLANT, SYNTHETIC_FIBRE as SYNTHETIC } from "../safety/fibres";
+import { getAgeBand, getCautions, type AgeBand, type Caution, type CautionGarment, type Wearer } from "../safety/cautions";
 
 export type FibreFamily = "wool" | "superwash_wool" | "plant" | "synthetic_blend";
-export type Wearer = "adult" | "teen" | "child" | "baby";
+export type { Wearer };
 
 export interface CareSection {
   heading: string;
@@ -13,11 +15,10 @@ export interface CareSection {
 export interface CareCard {
   fibreFamily: FibreFamily;
   sections: CareSection[];
+  ageBand: AgeBand;
+  /** what applies to this garment, wearer and fibre; always ends with the local-rules note */
+  cautions: Caution[];
 }
-
-const ANIMAL = /\b(wool|merino|alpaca|mohair|cashmere|yak|angora|camel|lambswool|shetland|llama|qiviut)\b/i;
-const PLANT = /\b(cotton|linen|flax|hemp|bamboo|viscose|lyocell|modal)\b/i;
-const SYNTHETIC = /\b(nylon|polyamide|acrylic|polyester|elastane)\b/i;
 
 /** The fibre family that decides the washing advice, from a yarn's fibre text ("Wool (100 %, non-superwash)"). */
 export function getFibreFamily(fibre: string): FibreFamily {
@@ -62,16 +63,11 @@ const REBLOCK: string[] = [
   "Leave it flat until fully dry, a day or two; turn it over halfway through.",
 ];
 
-export const CHILD_SAFETY: string[] = [
-  "No cords, drawstrings or ties at the neck or hood: do not add any (EN 14682 forbids them on children's clothing up to 7 years; ASTM F1816 on sizes 2T–12).",
-  "Nothing that can come off and be swallowed: check pompoms, buttons, beads and embroidered details before each wear, and stop using the piece if anything loosens (small parts are a choking hazard for children under 3).",
-  "Do not leave a baby or small child asleep or unattended with loose knitted items such as mittens on cords or scarves.",
-  "Follow the rules where you live (for example EN 14682 in Europe, ASTM F1816 and 16 CFR 1501 in the United States); they take precedence over this card.",
-];
-
-const WOOL_NOTE = "About wool: some people find wool itchy or react to lanolin. If the wearer's skin reddens or itches, stop wearing the piece next to the skin and let us know.";
-
-export function getCareCard(input: { fibres: string[]; wearer: Wearer }): CareCard {
+/**
+ * The care card of a piece: washing by its most delicate fibre, re-blocking, and the cautions for
+ * its garment, wearer and fibre (lib/core/safety, the one copy of those texts).
+ */
+export function getCareCard(input: { fibres: string[]; wearer: Wearer | string; garment: CautionGarment; sizeKey?: string | null }): CareCard {
   const families = input.fibres.length ? input.fibres.map(getFibreFamily) : (["wool"] as FibreFamily[]);
   // The most delicate fibre in the piece decides.
   const order: FibreFamily[] = ["wool", "superwash_wool", "synthetic_blend", "plant"];
@@ -80,7 +76,6 @@ export function getCareCard(input: { fibres: string[]; wearer: Wearer }): CareCa
     { heading: "Washing and drying", lines: WASH[fibreFamily] },
     { heading: "Re-blocking", lines: REBLOCK },
   ];
-  if (input.wearer === "child" || input.wearer === "baby") sections.push({ heading: "Safety for children", lines: CHILD_SAFETY });
-  if (families.some((f) => f === "wool" || f === "superwash_wool")) sections.push({ heading: "Wool and skin", lines: [WOOL_NOTE] });
-  return { fibreFamily, sections };
+  const ageBand = getAgeBand({ wearer: input.wearer, sizeKey: input.sizeKey });
+  return { fibreFamily, sections, ageBand, cautions: getCautions({ garment: input.garment, ageBand, fibres: input.fibres }) };
 }

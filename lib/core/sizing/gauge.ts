@@ -18,8 +18,10 @@ export interface GaugeInput {
   overIn?: number;
 }
 
-// Relaxed plain-knit loop geometry (Munden, J. Textile Institute, 1959): wales/cm × loop length ≈ 4.2,
-// courses/cm × loop length ≈ 5.5, so rows ≈ stitches × 5.5 / 4.2 when no row gauge is known.
+// Plain-knit loop geometry after Munden (J. Textile Institute, 1959) with the fully relaxed values of
+// later work (e.g. Knapton et al., 1968, as quoted in textile-engineering texts): wales/cm × loop
+// length ≈ 4.2, courses/cm × loop length ≈ 5.5, so rows ≈ stitches × 5.5 / 4.2 when no row gauge is
+// known. (Munden's own 1959 figures: about 3.8 / 5.0 dry-relaxed, 4.1 / 5.3 wet-relaxed; from memory.)
 export const ROWS_PER_STITCH_RELAXED = 5.5 / 4.2;
 
 /** Limits: finer than lace or coarser than jumbo is a slip, not a yarn (our own bounds). */
@@ -98,7 +100,7 @@ export function resolveGauge(input: GaugeInput, prefix = "gauge"): ResolvedGauge
   if (rows === undefined) {
     rows = stitches * ROWS_PER_STITCH_RELAXED;
     warnings.push(
-      `no row gauge given: assumed ${roundTo(rows, 0.1)} rows per 10 cm from relaxed stockinette proportions (Munden 1959); measure it for row counts you can trust`,
+      `no row gauge given: assumed ${roundTo(rows, 0.1)} rows per 10 cm from fully relaxed stockinette proportions (Knapton et al. 1968, after Munden 1959); measure it for row counts you can trust`,
     );
   } else if (rows < ROW_LIMIT_PER_10CM.min || rows > ROW_LIMIT_PER_10CM.max) {
     throw new SizingError(

@@ -138,7 +138,7 @@ export function sizeGarment(rawInput: unknown): SizingResult {
 
   const { gauge, given: givenGauge, rowsDerived, warnings: gaugeWarnings } = resolveGauge(input.gauge);
   warnings.push(...gaugeWarnings);
-  if (rowsDerived) sources.push("Munden, J. Textile Institute 1959: relaxed plain-knit proportions (row gauge assumed)");
+  if (rowsDerived) sources.push("Fully relaxed plain-knit proportions, courses/wales ≈ 5.5 / 4.2 (Knapton et al. 1968, as quoted in textile-engineering texts; geometry after Munden, J. Textile Institute 1959): row gauge assumed");
 
   if (input.yarnCategory !== undefined) {
     // In the unit the gauge was given: the standard publishes its ranges per 4 in and per 10 cm alike.

@@ -1,11 +1,15 @@
 // Yarn in one knitted stitch, from gauge alone, by relaxed plain-knit geometry.
 
-// Munden, "The geometry and dimensional properties of plain-knit fabrics", J. Textile Institute,
-// 1959: in a fully relaxed plain knit, wales per cm × loop length ≈ Kw ≈ 4.2 and courses per cm ×
-// loop length ≈ Kc ≈ 5.5, whatever the yarn. So loop length ≈ 4.2 ÷ wales per cm.
+// The geometry is Munden's ("The geometry and dimensional properties of plain-knit fabrics",
+// J. Textile Institute, 1959): wales per cm × loop length ≈ Kw and courses per cm × loop length ≈ Kc,
+// whatever the yarn. The values used here, Kw ≈ 4.2 and Kc ≈ 5.5, are the fully relaxed ones from
+// later work (e.g. Knapton et al., 1968), as quoted in textile-engineering texts; Munden's own 1959
+// figures were about 3.8 / 5.0 dry-relaxed and 4.1 / 5.3 wet-relaxed (from memory). Hand knits are
+// wet-blocked, so the fully relaxed values fit. Loop length ≈ 4.2 ÷ wales per cm.
 export const MUNDEN_KW = 4.2;
 export const MUNDEN_KC = 5.5;
-export const MUNDEN_SOURCE = "Munden, J. Textile Institute 1959: relaxed plain knit, wales/cm × loop length ≈ 4.2";
+export const MUNDEN_SOURCE =
+  "Plain-knit loop geometry after Munden (J. Textile Institute, 1959); fully relaxed value from later work (e.g. Knapton et al., 1968, as quoted in textile-engineering texts): wales/cm × loop length ≈ 4.2";
 
 /** Loop length in cm for a gauge in stitches (wales) per 10 cm; ≈ 2.1 cm at 20 sts per 10 cm. */
 export function getLoopLengthCm(stitchesPer10cm: number): number {

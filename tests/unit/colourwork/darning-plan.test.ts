@@ -16,7 +16,7 @@ describe("planDarning", () => {
     expect(c.strands[0].stitches.every((s) => s.row === 1)).toBe(true);
     expect(c.strands[0].stitches[0].carryCm).toBeUndefined();
     expect(c.strands[0].stitches[1].carryCm).toBe(1.5);
-    // loop ≈ 4.2 ÷ 2 sts/cm = 2.1 cm (Munden 1959, Kw ≈ 4.2): 2 × 2.1 + 2 tails × 15 + 1.5 = 35.7 → 36 cm
+    // loop ≈ 4.2 ÷ 2 sts/cm = 2.1 cm (fully relaxed Kw ≈ 4.2: Knapton et al. 1968, geometry after Munden 1959): 2 × 2.1 + 2 tails × 15 + 1.5 = 35.7 → 36 cm
     expect(c.yarnCm).toBe(36);
     // 2 × 30 s + 2 ends × 3 min + 1.5 cm × 5 s = 7.125 min
     expect(c.minutes).toBe(7.1);

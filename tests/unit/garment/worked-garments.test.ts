@@ -175,7 +175,7 @@ describe("yarn by the real underlay", () => {
 
 describe("yarn of stranded work against the trade's rule of thumb", () => {
   // A stranded stitch carries the other colour behind it: about one stitch width of float per
-  // stitch, ≈ 1/Kw ≈ 24 % more yarn (Munden, J. Textile Institute 1959, relaxed plain knit; see
+  // stitch, ≈ 1/Kw ≈ 24 % more yarn (fully relaxed plain knit: Knapton et al. 1968 on Munden's 1959 geometry; see
   // TRADE-REFERENCES.md), matching the common "stranded takes about 25 % more" (knitting-technique
   // authors, common practice). So the garment's extra yarn, per share of its stitches stranded,
   // should land near a quarter: between 20 % and 30 % (ends and tails move it a little).

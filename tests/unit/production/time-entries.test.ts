@@ -177,24 +177,24 @@ describe("care card", () => {
     expect(getFibreFamily(fibre)).toBe(family);
   });
   test("wool: hand wash cool, no agitation, dry flat; re-block; allergy note; no child cautions for an adult", () => {
-    const card = getCareCard({ fibres: ["Wool (100 %, non-superwash)"], wearer: "adult" });
+    const card = getCareCard({ fibres: ["Wool (100 %, non-superwash)"], wearer: "adult", garment: "pullover" });
     const text = card.sections.map((s) => `${s.heading}: ${s.lines.join(" ")}`).join("\n");
     expect(text).toMatch(/Hand wash only, in cool water/);
     expect(text).toMatch(/agitate/);
     expect(text).toMatch(/Dry flat/);
     expect(text).toMatch(/re-block/);
-    expect(text).toMatch(/lanolin/);
-    expect(text).not.toMatch(/EN 14682/);
+    expect(card.cautions.map((c) => c.id)).toEqual(["wool-lanolin", "local-rules"]);
   });
-  test("a baby's piece carries the cord and small-parts cautions and defers to local rules", () => {
-    const text = getCareCard({ fibres: ["Organic cotton"], wearer: "baby" }).sections.flatMap((s) => s.lines).join(" ");
-    expect(text).toMatch(/EN 14682/);
-    expect(text).toMatch(/ASTM F1816/);
-    expect(text).toMatch(/swallowed/);
-    expect(text).toMatch(/rules where you live/);
-    expect(text).not.toMatch(/lanolin/);
+  test("a baby's cotton mittens carry the cord, float and attachment cautions and defer to local rules", () => {
+    const card = getCareCard({ fibres: ["Organic cotton"], wearer: "baby", garment: "mittens" });
+    const ids = card.cautions.map((c) => c.id);
+    expect(ids).toEqual(["mitten-sleeve-cord", "mitten-floats-baby", "mitten-ends", "attachments", "local-rules"]);
+    expect(card.cautions.map((c) => c.text).join(" ")).toMatch(/where the child lives/);
+  });
+  test("a standard child's size makes an adult-recorded wearer's card a child's", () => {
+    expect(getCareCard({ fibres: ["Wool"], wearer: "adult", garment: "hat", sizeKey: "toddler" }).ageBand).toBe("young-child");
   });
   test("the most delicate fibre decides", () => {
-    expect(getCareCard({ fibres: ["Organic cotton", "Wool"], wearer: "adult" }).fibreFamily).toBe("wool");
+    expect(getCareCard({ fibres: ["Organic cotton", "Wool"], wearer: "adult", garment: "hat" }).fibreFamily).toBe("wool");
   });
 });

@@ -118,10 +118,10 @@ describe("templates", () => {
 
   test("a missing row gauge is assumed from relaxed proportions, with a warning and its source", () => {
     const r = sizeGarment({ garment: "hat", measurements: { headCircumferenceCm: 56 }, gauge: { stitchesPer10cm: 21 } });
-    // Munden 1959: rows ≈ stitches × 5.5 / 4.2
+    // Fully relaxed proportions (Knapton et al. 1968, after Munden 1959): rows ≈ stitches × 5.5 / 4.2
     expect(r.gauge.rowsPer10cm).toBeCloseTo(27.5, 1);
     expect(r.warnings.join(" ")).toMatch(/no row gauge/);
-    expect(r.sources.join(" ")).toMatch(/Munden/);
+    expect(r.sources.join(" ")).toMatch(/Knapton et al\. 1968.*Munden/);
   });
 
   test.each(["mitten", "hat", "pullover"] as const)("every standard %s size sizes without error", (garment) => {

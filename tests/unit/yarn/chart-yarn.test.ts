@@ -6,7 +6,7 @@ import { estimateYarn } from "@/lib/core/yarn/estimate-yarn";
 import { getLoopLengthCm } from "@/lib/core/yarn/loop-length";
 import { PALETTE, chartOf } from "./charts";
 
-// At 20 sts / 10 cm: loop length 4.2 ÷ 2 = 2.1 cm (Munden 1959), stitch width 0.5 cm.
+// At 20 sts / 10 cm: loop length 4.2 ÷ 2 = 2.1 cm (fully relaxed Kw ≈ 4.2: Knapton et al. 1968, geometry after Munden 1959), stitch width 0.5 cm.
 const SMALL = chartOf(["ABCA", "AAAA"]);
 
 describe("a small chart worked by hand", () => {

@@ -3,7 +3,7 @@ import { getLoopLengthCm, MUNDEN_KC, MUNDEN_KW } from "@/lib/core/yarn/loop-leng
 import { getNeedleMmFromUs, getNeedleSize, NO_EQUIVALENT } from "@/lib/core/yarn/needle-sizes";
 import { checkGauge, getTypicalStitchesPer10cm, getYarnWeight, YARN_WEIGHTS } from "@/lib/core/yarn/yarn-weights";
 
-describe("loop length (Munden, J. Textile Institute 1959: Kw ≈ 4.2, Kc ≈ 5.5)", () => {
+describe("loop length (fully relaxed Kw ≈ 4.2, Kc ≈ 5.5: Knapton et al. 1968, on Munden's 1959 geometry)", () => {
   test("the worked value: about 2.1 cm at 20 sts / 10 cm", () => {
     expect(getLoopLengthCm(20)).toBeCloseTo(2.1, 9);
   });

@@ -1,7 +1,7 @@
 // Our estimates for whole plain garments against published yardage by yarn weight.
 // Source of the ranges: Knitting & Crocheting All-in-One For Dummies (Wiley), yardage by weight,
 // in yards (TRADE-REFERENCES.md). Each weight is knitted at the middle of its Craft Yarn Council
-// gauge range, rows from relaxed proportions (Munden 1959), with the studio's 10 % margin.
+// gauge range, rows from relaxed proportions (Knapton et al. 1968, after Munden 1959), with the studio's 10 % margin.
 import { describe, expect, test } from "vitest";
 import { sizeGarment } from "@/lib/core/sizing/size-garment";
 import { DEFAULT_MARGIN_PERCENT } from "@/lib/core/yarn/allowances";

@@ -1,7 +1,7 @@
 import { describe, expect, test } from "vitest";
 import { run } from "@/scripts/core-verbs/yarn";
 
-// A 4 × 3 chart at 20 sts / 10 cm: loop 2.1 cm, stitch 0.5 cm (Munden 1959).
+// A 4 × 3 chart at 20 sts / 10 cm: loop 2.1 cm, stitch 0.5 cm (fully relaxed Kw ≈ 4.2: Knapton et al. 1968, geometry after Munden 1959).
 const CHART = {
   version: 1,
   width: 4,

@@ -3,8 +3,10 @@ import { useActionState, useRef, startTransition } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { GuardRailNote } from "@/components/quotes/guard-rail-note";
 import { errorsOf, useZodForm } from "@/components/auth/use-zod-form";
 import { idleState, type ActionState } from "@/lib/action-state";
+import { getGuardRailWarnings } from "@/lib/core/pricing/guard-rails";
 import { settingsFormSchema } from "@/lib/schemas/settings-form";
 import { saveSettingsAction } from "./actions";
 
@@ -67,7 +69,13 @@ export function SettingsForm({ currency, defaults, rates }: { currency: string; 
             <option value="no">exclude tax (tax added on top)</option>
           </select>
         </div>
-        <Field label="Deposit (% of the total)" inputMode="decimal" {...form.register("depositPercent")} errors={errs("depositPercent")} />
+        <Field
+          label="Deposit (% of the total)"
+          hint={<GuardRailNote field="depositPercent" warnings={getGuardRailWarnings({ depositPercent: form.watch("depositPercent") as string | undefined })} />}
+          inputMode="decimal"
+          {...form.register("depositPercent")}
+          errors={errs("depositPercent")}
+        />
         <Field
           label="Deposit refunded if cancelled before knitting (%)"
           hint="Once knitting starts the deposit is kept; from blocking on, the full price."

@@ -28,7 +28,7 @@ export default async function SizingPage({ params }: { params: Promise<{ id: str
         }
       />
       {!data.saved ? <p className="mb-4 text-bark">Not saved yet: these are the brief&apos;s measurements with a usual firm gauge for fingering-weight colourwork. Measure your swatch.</p> : null}
-      <SizingForm commissionId={c.id} garment={c.garment} wearer={c.wearer} initial={data.values} saved={data.saved} canEdit={can(actor, "commission.work", c.studioId)} />
+      <SizingForm commissionId={c.id} garment={c.garment} wearer={c.wearer} fibres={data.fibres} initial={data.values} saved={data.saved} canEdit={can(actor, "commission.work", c.studioId)} />
     </>
   );
 }
