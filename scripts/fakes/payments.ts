@@ -130,9 +130,10 @@ export function currencyAmountError(currency: string, amount: number, param: str
 function formatAmount(amount: number, currency: string): string {
   const code = currency.toUpperCase();
   const digits = apiDigits(code);
-  const whole = Math.trunc(amount / 10 ** digits);
-  const fraction = String(Math.abs(amount) % 10 ** digits).padStart(digits, "0");
-  return `${code} ${whole.toLocaleString("en-GB")}${digits > 0 ? "." + fraction : ""}`;
+  const abs = String(Math.abs(amount)).padStart(digits + 1, "0");
+  const text = `${amount < 0 ? "-" : ""}${abs.slice(0, abs.length - digits)}${digits > 0 ? "." + abs.slice(abs.length - digits) : ""}`;
+  // Exactly the provider's decimals (min = max), never the runtime's locale digits; Intl formats the string exactly.
+  return new Intl.NumberFormat("en-GB", { style: "currency", currency: code, minimumFractionDigits: digits, maximumFractionDigits: digits }).format(text as `${number}`);
 }
 
 export function signPayload(secret: string, payload: string, timestamp = now()): string {
