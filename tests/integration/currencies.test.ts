@@ -13,6 +13,7 @@ import { refundByPolicy, renderDocumentPdf, startCheckout } from "@/lib/server/p
 import { acceptQuote, saveQuoteDraft, sendQuote } from "@/lib/server/quotes";
 import { updateStudioSettings } from "@/lib/server/settings";
 import type { PaymentsFake } from "@/scripts/fakes/payments";
+import Stripe from "stripe";
 import { makeWorld } from "./helpers";
 import { paymentsFakeForFile } from "./payments-fake";
 
@@ -65,7 +66,7 @@ const rowsOf = async (commissionId: string) => ({
 });
 
 describe("deposits in 2- and 3-digit currencies", { timeout: 60_000 }, () => {
-  test("HUF: the deposit goes to the provider in hundredths of a forint (30 000 Ft → 3 000 000), receipt and rows say 2 digits", async () => {
+  test("HUF: the deposit goes to the provider in hundredths of a forint (30 000 Ft would be 3 000 000), receipt and rows say 2 digits", async () => {
     // 9 000.00 Ft an hour and 3 000.00 Ft a skein: a real-sized forint quote.
     const { w, yarnId, owner, client } = await setup("HUF", { hourlyRateMinor: 900_000, unitPriceMinor: 300_000 });
     const v = await saveQuoteDraft(owner, w.commissionA, draft(yarnId, 40_000));
@@ -164,6 +165,20 @@ describe("deposits in 2- and 3-digit currencies", { timeout: 60_000 }, () => {
 });
 
 describe("bad input: clear errors, nothing saved", { timeout: 60_000 }, () => {
+  test("the payments fake answers 400 in the provider's style for an amount or a currency its rules refuse", async () => {
+    const local = new URL(fake.url);
+    const sdk = new Stripe(payFake.secret, { host: local.hostname, port: Number(local.port), protocol: "http", maxNetworkRetries: 0 });
+    const session = (currency: string, unit_amount: number) =>
+      sdk.checkout.sessions.create({ mode: "payment", success_url: "http://127.0.0.1/ok", line_items: [{ quantity: 1, price_data: { currency, unit_amount, product_data: { name: "Deposit" } } }] });
+    const before = Object.keys(fake.state.sessions).length;
+    await expect(session("kwd", 12_345)).rejects.toMatchObject({ statusCode: 400, type: "StripeInvalidRequestError", message: expect.stringContaining("least-significant digit of 0") });
+    await expect(session("isk", 550)).rejects.toMatchObject({ statusCode: 400, code: "invalid_charge_amount_no_decimal_compatible" });
+    await expect(session("xyz", 1000)).rejects.toMatchObject({ statusCode: 400, message: expect.stringMatching(/^Invalid currency: xyz/) });
+    await expect(session("iqd", 1000)).rejects.toMatchObject({ statusCode: 400 });
+    expect(Object.keys(fake.state.sessions)).toHaveLength(before);
+    await expect(session("kwd", 12_350)).resolves.toMatchObject({ amount_total: 12_350, currency: "kwd" });
+  });
+
   test("an unknown currency code is refused when the quote is built", async () => {
     const { w, yarnId, owner } = await setup("XYZ");
     await expect(saveQuoteDraft(owner, w.commissionA, draft(yarnId, 400))).rejects.toMatchObject({
