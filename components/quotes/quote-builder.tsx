@@ -12,6 +12,7 @@ import { DesignYarnPanel, type DesignYarnPanelData } from "./design-yarn-panel";
 import { FEATURE_FIELDS } from "./feature-fields";
 import type { PieceFeatures } from "@/lib/core/labour/piece-features";
 import { composeQuote, type QuoteDraft, type QuotePolicy } from "@/lib/core/pricing/compose-quote";
+import { isProviderCurrency, withProviderDeposit } from "@/lib/core/pricing/provider-currency";
 import { diffQuotes } from "@/lib/core/pricing/diff-quotes";
 import { explainChange } from "@/lib/core/pricing/explain-change";
 import { formatMoney, minorToDecimalString } from "@/lib/core/pricing/format-money";
@@ -93,8 +94,14 @@ export function QuoteBuilder(props: {
 
   let preview: ReturnType<typeof composeQuote> | null = null;
   let previewError: string | null = null;
+  // The deposit as the server will store it: fitted to what the payment provider can charge.
+  let depositNote: string | null = null;
   try {
     preview = composeQuote(draft, policy);
+    const fitted = withProviderDeposit(preview.quote);
+    preview = { ...preview, quote: fitted.quote };
+    depositNote = fitted.note;
+    if (fitted.problem && isProviderCurrency(preview.quote.currency)) previewError = fitted.problem;
   } catch (err) {
     previewError = (err as Error).message;
   }
@@ -419,6 +426,11 @@ export function QuoteBuilder(props: {
                   </tr>
                 </tfoot>
               </table>
+              {depositNote ? (
+                <p className="mt-3 text-sm" data-testid="quote-deposit-note">
+                  {depositNote}
+                </p>
+              ) : null}
               <p className="mt-3 text-sm text-bark">
                 Labour {preview.estimate.totals.p50Hours} h typical, {preview.estimate.totals.p80Hours} h cautious; priced at the {policy.labourPolicy === "p80" ? "cautious (P80)" : "typical (P50)"} figure.
               </p>

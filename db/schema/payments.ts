@@ -1,5 +1,5 @@
 import { sql } from "drizzle-orm";
-import { check, date, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { check, date, index, integer, jsonb, pgEnum, pgTable, smallint, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { commissions } from "./commissions";
 import { quoteVersions } from "./quotes";
 import { studios } from "./studios";
@@ -23,6 +23,8 @@ export const payments = pgTable(
     status: paymentStatus("status").notNull().default("open"),
     amountMinor: integer("amount_minor").notNull(),
     currency: text("currency").notNull(),
+    /** ISO 4217 minor-unit digits of amountMinor/refundedMinor (checked against the table before charging or refunding) */
+    minorDigits: smallint("minor_digits").notNull(),
     refundedMinor: integer("refunded_minor").notNull().default(0),
     checkoutSessionId: text("checkout_session_id").unique(),
     checkoutUrl: text("checkout_url"),
@@ -46,6 +48,8 @@ export const refunds = pgTable("refunds", {
     .references(() => payments.id, { onDelete: "cascade" }),
   providerRefundId: text("provider_refund_id").unique(),
   amountMinor: integer("amount_minor").notNull(),
+  /** ISO 4217 minor-unit digits of amountMinor (the payment's currency) */
+  minorDigits: smallint("minor_digits").notNull(),
   reason: text("reason").notNull().default(""),
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
 });
@@ -86,6 +90,8 @@ export const invoices = pgTable(
     quoteVersionId: uuid("quote_version_id").references(() => quoteVersions.id),
     paymentId: uuid("payment_id").references(() => payments.id),
     currency: text("currency").notNull(),
+    /** ISO 4217 minor-unit digits of every amount in content and totalMinor */
+    minorDigits: smallint("minor_digits").notNull(),
     /** lines, tax, totals, deposit paid, balance due, as issued */
     content: jsonb("content").$type<Record<string, unknown>>().notNull(),
     totalMinor: integer("total_minor").notNull(),

@@ -1,5 +1,5 @@
 import { sql } from "drizzle-orm";
-import { check, date, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { check, date, index, integer, jsonb, pgEnum, pgTable, smallint, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { user } from "./auth";
 import { commissions } from "./commissions";
 import { designVersions } from "./designs";
@@ -21,6 +21,8 @@ export const quoteVersions = pgTable(
     number: integer("number").notNull(),
     status: quoteStatus("status").notNull().default("draft"),
     currency: text("currency").notNull(),
+    /** ISO 4217 minor-unit digits the amounts below were stored with (checked against the table when read back) */
+    minorDigits: smallint("minor_digits").notNull(),
     /** what the quote was built from (lib/core/pricing buildQuote input, labour estimate, features) */
     input: jsonb("input").$type<Record<string, unknown>>().notNull(),
     /** buildQuote output: lines and totals in minor units */

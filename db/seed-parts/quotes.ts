@@ -114,6 +114,7 @@ export const seedQuotes: SeedPart = async (tx, ctx: SeedContext) => {
       number: 1,
       status: q.status,
       currency: "GBP",
+      minorDigits: quote.minorDigits,
       input: { draft, policy: POLICY, validUntil, estimate: { p50Minutes: estimate.totals.p50Minutes, p80Minutes: estimate.totals.p80Minutes } },
       result: quote as unknown as Record<string, unknown>,
       totalMinor: quote.totalMinor,

@@ -30,6 +30,7 @@ import type { Quote } from "@/lib/core/pricing/build-quote";
 import { getRefundDue, type CancellationStage } from "@/lib/core/pricing/cancellation";
 import { policyFromSettings } from "@/lib/core/pricing/studio-policy";
 import { formatMoney } from "@/lib/core/pricing/format-money";
+import { fromProviderAmount, providerStepMinor } from "@/lib/core/pricing/provider-currency";
 import { canMove } from "@/lib/core/workflow";
 import { env } from "@/lib/env";
 import { eventEnvelopeSchema, HANDLED_EVENT_TYPES, handledEventSchema } from "@/lib/schemas/payment-events";
@@ -37,6 +38,7 @@ import { documentMessage } from "@/templates/email/money";
 import { InvoiceDocument } from "@/templates/pdf/invoice";
 import { assertCan, can, type Actor } from "./authz";
 import { AppError, conflict, notFound, nullIfNotFound } from "./errors";
+import { assertStoredDigits, providerAmountOrThrow } from "./money-guard";
 import { enqueueMail } from "./outbox";
 import { renderPdf } from "./pdf";
 import { getCommissionFor, getCommissionMailParties } from "./queries/commissions";
@@ -82,6 +84,7 @@ const appUrl = (p: string) => `${env.BETTER_AUTH_URL}${p}`;
 
 /** Called inside the acceptance transaction: the deposit payment row (or, for a zero deposit, booking at once). */
 export async function openDepositPayment(tx: Tx, v: QuoteVersion): Promise<Payment | null> {
+  assertStoredDigits("This quote's deposit cannot be charged", v);
   // A re-quote after booking asks only for what the deposit paid so far does not cover.
   const held = await tx
     .select({ amount: payments.amountMinor, refunded: payments.refundedMinor })
@@ -94,7 +97,7 @@ export async function openDepositPayment(tx: Tx, v: QuoteVersion): Promise<Payme
   }
   const [p] = await tx
     .insert(payments)
-    .values({ studioId: v.studioId, commissionId: v.commissionId, quoteVersionId: v.id, kind: "deposit", amountMinor: due, currency: v.currency, idempotencyKey: `checkout-${randomUUID()}` })
+    .values({ studioId: v.studioId, commissionId: v.commissionId, quoteVersionId: v.id, kind: "deposit", amountMinor: due, currency: v.currency, minorDigits: v.minorDigits, idempotencyKey: `checkout-${randomUUID()}` })
     .returning();
   return p;
 }
@@ -118,6 +121,8 @@ async function ensureCustomer(clientId: string): Promise<string> {
 }
 
 async function createSession(p: Payment, title: string, clientId: string): Promise<Payment> {
+  // The provider's currency rules (zero-/three-decimal, ISK): refused here, before anything is created.
+  const charge = providerAmountOrThrow(p.amountMinor, p.currency);
   const customer = await ensureCustomer(clientId);
   const back = appUrl(`/portal/commissions/${p.commissionId}`);
   let session: Stripe.Checkout.Session;
@@ -127,7 +132,7 @@ async function createSession(p: Payment, title: string, clientId: string): Promi
         mode: "payment",
         customer,
         client_reference_id: p.id,
-        line_items: [{ quantity: 1, price_data: { currency: p.currency.toLowerCase(), unit_amount: p.amountMinor, product_data: { name: `${p.kind === "deposit" ? "Deposit" : "Balance"}: ${title}` } } }],
+        line_items: [{ quantity: 1, price_data: { currency: charge.currency, unit_amount: charge.amount, product_data: { name: `${p.kind === "deposit" ? "Deposit" : "Balance"}: ${title}` } } }],
         metadata: { paymentId: p.id, commissionId: p.commissionId, kind: p.kind },
         payment_intent_data: { metadata: { paymentId: p.id, commissionId: p.commissionId, kind: p.kind } },
         success_url: `${back}?paid=${p.kind}`,
@@ -159,12 +164,13 @@ export async function startCheckout(actor: Actor, commissionId: string, kind: "d
     .limit(1);
   if (!latest) throw conflict(kind === "deposit" ? "There is no deposit to pay: accept the quote first." : "The balance is not due yet.");
   if (["paid", "partially_refunded", "refunded"].includes(latest.status)) throw conflict(`The ${kind} has already been paid. Thank you!`);
+  assertStoredDigits(`The ${kind} cannot be charged`, latest);
   const [clientRow] = await db.select({ clientId: commissions.clientId }).from(commissions).where(eq(commissions.id, c.id));
   let p = latest;
   if (p.status === "expired") {
     const [fresh] = await db
       .insert(payments)
-      .values({ studioId: p.studioId, commissionId: p.commissionId, quoteVersionId: p.quoteVersionId, kind, amountMinor: p.amountMinor, currency: p.currency, idempotencyKey: `checkout-${randomUUID()}` })
+      .values({ studioId: p.studioId, commissionId: p.commissionId, quoteVersionId: p.quoteVersionId, kind, amountMinor: p.amountMinor, currency: p.currency, minorDigits: p.minorDigits, idempotencyKey: `checkout-${randomUUID()}` })
       .returning();
     p = fresh;
   }
@@ -232,6 +238,7 @@ export async function issueDocument(
     .orderBy(desc(quoteVersions.number))
     .limit(1);
   if (!v) throw conflict("This commission has no accepted quote to invoice.");
+  assertStoredDigits(`This ${opts.kind} cannot be issued`, v);
   const q = v.result as unknown as Quote;
   const paid = await paidSoFar(tx, c.id);
   // The studio's counter row stays locked until commit and every issue of the studio queues on it:
@@ -262,6 +269,7 @@ export async function issueDocument(
       quoteVersionId: v.id,
       paymentId: opts.paymentId ?? null,
       currency: v.currency,
+      minorDigits: v.minorDigits,
       content: content as unknown as Record<string, unknown>,
       totalMinor: opts.kind === "receipt" ? (opts.receivedMinor ?? q.totalMinor) : q.totalMinor - paid.deposit - paid.balance,
       dueDate: opts.dueDate ?? null,
@@ -271,6 +279,7 @@ export async function issueDocument(
 }
 
 export async function renderDocumentPdf(doc: Invoice): Promise<Buffer> {
+  assertStoredDigits(`${documentLabel(doc)} cannot be shown`, doc);
   const [s] = await db.select().from(studios).where(eq(studios.id, doc.studioId));
   const k = doc.content as unknown as DocumentContent;
   const cur = doc.currency;
@@ -359,6 +368,7 @@ export async function requestBalance(actor: Actor, commissionId: string): Promis
     if (row.state !== "ready") throw conflict("The balance is requested once the piece is marked ready.");
     const [v] = await tx.select().from(quoteVersions).where(and(eq(quoteVersions.commissionId, c.id), eq(quoteVersions.status, "accepted"))).orderBy(desc(quoteVersions.number)).limit(1);
     if (!v) throw conflict("This commission has no accepted quote.");
+    assertStoredDigits("The balance cannot be charged", v);
     const open = await tx.select().from(payments).where(and(eq(payments.commissionId, c.id), eq(payments.kind, "balance"), inArray(payments.status, ["open", "failed", "paid"]))).limit(1);
     if (open.length) throw conflict("The balance has already been requested.");
     const paid = await paidSoFar(tx, c.id);
@@ -369,7 +379,7 @@ export async function requestBalance(actor: Actor, commissionId: string): Promis
     }
     const [p] = await tx
       .insert(payments)
-      .values({ studioId: c.studioId, commissionId: c.id, quoteVersionId: v.id, kind: "balance", amountMinor: due, currency: v.currency, idempotencyKey: `checkout-${randomUUID()}` })
+      .values({ studioId: c.studioId, commissionId: c.id, quoteVersionId: v.id, kind: "balance", amountMinor: due, currency: v.currency, minorDigits: v.minorDigits, idempotencyKey: `checkout-${randomUUID()}` })
       .returning();
     const dueDate = new Date(Date.now() + 14 * 86_400_000).toISOString().slice(0, 10);
     const parties = await getCommissionMailParties(tx, c.id);
@@ -491,7 +501,9 @@ async function flag(tx: Tx, commissionId: string, kind: string, detail: Record<s
 
 async function markPaid(tx: Tx, p: Payment, info: { sessionId?: string | null; intentId?: string | null; amount: number; currency: string }): Promise<Record<string, unknown>> {
   if (SETTLED.has(p.status)) return { ignored: "already paid" };
-  if (info.amount !== p.amountMinor || info.currency.toUpperCase() !== p.currency.toUpperCase()) {
+  // The provider's amount is in its own units (ISK ×100, MGA whole ariary): back to ISO minor units, exactly.
+  const received = info.currency.toUpperCase() === p.currency.toUpperCase() ? fromProviderAmount(info.amount, p.currency) : null;
+  if (received !== p.amountMinor) {
     await flag(tx, p.commissionId, "payment_mismatch", { paymentId: p.id, expected: `${p.amountMinor} ${p.currency}`, received: `${info.amount} ${info.currency}` });
     return { ignored: "amount or currency does not match the payment; flagged for the owner" };
   }
@@ -554,9 +566,11 @@ async function applyEvent(tx: Tx, event: Stripe.Event): Promise<Record<string, u
         if (!SETTLED.has(p.status)) return { ignored: "payment could not be settled" };
       }
       for (const r of ch.refunds?.data ?? []) {
-        await tx.insert(refunds).values({ paymentId: p.id, providerRefundId: r.id, amountMinor: r.amount, reason: r.reason ?? "" }).onConflictDoNothing();
+        const amountMinor = fromProviderAmount(r.amount, p.currency);
+        if (amountMinor === null) continue;
+        await tx.insert(refunds).values({ paymentId: p.id, providerRefundId: r.id, amountMinor, minorDigits: p.minorDigits, reason: r.reason ?? "" }).onConflictDoNothing();
       }
-      const refunded = Math.min(p.amountMinor, Math.max(p.refundedMinor, ch.amount_refunded));
+      const refunded = Math.min(p.amountMinor, Math.max(p.refundedMinor, fromProviderAmount(ch.amount_refunded, p.currency) ?? 0));
       await tx
         .update(payments)
         .set({ refundedMinor: refunded, status: refunded >= p.amountMinor ? "refunded" : refunded > 0 ? "partially_refunded" : p.status })
@@ -588,6 +602,7 @@ export async function previewRefund(actor: Actor, commissionId: string) {
   assertCan(actor, "payments.manage", c.studioId);
   const [v] = await db.select().from(quoteVersions).where(and(eq(quoteVersions.commissionId, c.id), eq(quoteVersions.status, "accepted"))).orderBy(desc(quoteVersions.number)).limit(1);
   if (!v) throw conflict("Nothing was paid on this commission.");
+  assertStoredDigits("The refund cannot be worked out", v);
   const settings = await loadStudioSettings(c.studioId);
   const settled = await db.select().from(payments).where(and(eq(payments.commissionId, c.id), inArray(payments.status, ["paid", "partially_refunded"])));
   const paidMinor = settled.reduce((s, p) => s + p.amountMinor - p.refundedMinor, 0);
@@ -622,28 +637,39 @@ export async function refundByPolicy(actor: Actor, commissionId: string, opts: {
   const order = [...preview.settled].sort((a, b) => (a.kind === b.kind ? 0 : a.kind === "balance" ? -1 : 1));
   for (const p of order) {
     if (left <= 0) break;
-    const amount = Math.min(left, p.amountMinor - p.refundedMinor);
+    assertStoredDigits("This payment cannot be refunded", p);
+    // What the provider can send back is a multiple of its step (KWD 0.010, MGA 1.00): a remainder below
+    // one step stays with the studio (the provider's documented workaround: round the refund down).
+    const step = providerStepMinor(p.currency) ?? 1;
+    const wanted = Math.min(left, p.amountMinor - p.refundedMinor);
+    const amount = wanted - (wanted % step);
     if (amount <= 0 || !p.paymentIntentId) continue;
+    const back = providerAmountOrThrow(amount, p.currency);
     let r: Stripe.Refund;
     try {
       r = await stripe().refunds.create(
-        { payment_intent: p.paymentIntentId, amount, reason: "requested_by_customer", metadata: { paymentId: p.id } },
+        { payment_intent: p.paymentIntentId, amount: back.amount, reason: "requested_by_customer", metadata: { paymentId: p.id } },
         { idempotencyKey: `refund-${p.id}-${p.refundedMinor}-${amount}` },
       );
     } catch (err) {
       throw providerError(err, "sending the refund");
     }
+    const sentBack = fromProviderAmount(r.amount, p.currency) ?? amount;
     await db.transaction(async (tx) => {
       const [row] = await tx.select().from(payments).where(eq(payments.id, p.id)).for("update");
-      const [ins] = await tx.insert(refunds).values({ paymentId: p.id, providerRefundId: r.id, amountMinor: r.amount, reason: opts.reason ?? "cancellation policy" }).onConflictDoNothing().returning();
+      const [ins] = await tx
+        .insert(refunds)
+        .values({ paymentId: p.id, providerRefundId: r.id, amountMinor: sentBack, minorDigits: p.minorDigits, reason: opts.reason ?? "cancellation policy" })
+        .onConflictDoNothing()
+        .returning();
       if (ins) {
-        const refunded = Math.min(row.amountMinor, row.refundedMinor + r.amount);
+        const refunded = Math.min(row.amountMinor, row.refundedMinor + sentBack);
         await tx.update(payments).set({ refundedMinor: refunded, status: refunded >= row.amountMinor ? "refunded" : "partially_refunded" }).where(eq(payments.id, p.id));
       }
-      await tx.insert(commissionEvents).values({ commissionId: c.id, actorUserId: actor.userId, actorRole: "owner", kind: "refund", detail: { paymentId: p.id, amountMinor: r.amount, stage: preview.stage } });
+      await tx.insert(commissionEvents).values({ commissionId: c.id, actorUserId: actor.userId, actorRole: "owner", kind: "refund", detail: { paymentId: p.id, amountMinor: sentBack, stage: preview.stage } });
     });
-    done.push({ paymentId: p.id, amountMinor: r.amount });
-    left -= r.amount;
+    done.push({ paymentId: p.id, amountMinor: sentBack });
+    left -= sentBack;
   }
   return { stage: preview.stage, refundMinor: preview.toRefund, refunds: done, retainedMinor: preview.due.retainedMinor, currency: preview.currency };
 }

@@ -9,6 +9,7 @@ import { composeQuote, type QuoteDraft, type QuotePolicy } from "@/lib/core/pric
 import { formatMoney } from "@/lib/core/pricing/format-money";
 import type { Quote } from "@/lib/core/pricing/build-quote";
 import { PricingInputError } from "@/lib/core/pricing/pricing-error";
+import { isProviderCurrency, withProviderDeposit } from "@/lib/core/pricing/provider-currency";
 import { env } from "@/lib/env";
 import type { QuoteDraftBody } from "@/lib/schemas/quotes";
 import type { StudioSettings } from "@/lib/schemas/settings";
@@ -16,6 +17,7 @@ import { QuoteDocument } from "@/templates/pdf/quote";
 import { quoteSentMessage } from "@/templates/email/money";
 import { assertCan, can, type Actor } from "./authz";
 import { AppError, conflict, notFound, nullIfNotFound } from "./errors";
+import { assertStoredDigits } from "./money-guard";
 import { enqueueMail } from "./outbox";
 import { renderPdf } from "./pdf";
 import { getCommissionFor, getCommissionMailParties } from "./queries/commissions";
@@ -172,12 +174,18 @@ export async function saveQuoteDraft(actor: Actor, commissionId: string, body: Q
   const settings = await loadStudioSettings(c.studioId);
   const policy = policyFrom(settings, c.currency);
   const draft = await draftFromBody(c.studioId, body);
-  const { quote, estimate } = compose(draft, policy);
+  const { quote: built, estimate } = compose(draft, policy);
+  // The deposit the client pays by card must be an amount the provider can charge (KWD in steps of
+  // 0.010, MGA whole ariary): round it here, where the quote is built, so quote, checkout and receipt agree.
+  const fitted = withProviderDeposit(built);
+  if (fitted.problem && isProviderCurrency(built.currency)) throw new AppError(422, "invalid_quote", fitted.problem);
+  const quote = { ...fitted.quote, ...(fitted.note ? { depositNote: fitted.note } : {}) };
   if (body.validUntil && body.validUntil < todayIso()) throw new AppError(422, "invalid_input", "The validity date is in the past.", { validUntil: ["Choose today or a later date."] });
   const design = { designVersionId: (await getPricedDesignVersion(c.id))?.version.id ?? null };
   const input: StoredQuoteInput = { draft, policy, validUntil: body.validUntil ?? null, estimate: { p50Minutes: estimate.totals.p50Minutes, p80Minutes: estimate.totals.p80Minutes } };
   const values = {
     currency: c.currency,
+    minorDigits: quote.minorDigits,
     input: input as unknown as Record<string, unknown>,
     result: quote as unknown as Record<string, unknown>,
     totalMinor: quote.totalMinor,
@@ -213,6 +221,7 @@ async function studioDoc(studioId: string) {
 export const portalUrl = (commissionId: string) => `${env.BETTER_AUTH_URL}/portal/commissions/${commissionId}`;
 
 export async function renderQuotePdf(v: QuoteVersion): Promise<Buffer> {
+  assertStoredDigits("This quote cannot be shown", v);
   const q = quoteOf(v);
   const [c] = await db
     .select({ title: commissions.title, number: commissions.number, clientName: studioClients.displayName })
@@ -269,6 +278,7 @@ export async function sendQuote(actor: Actor, quoteId: string): Promise<QuoteVer
     const [c] = await tx.select().from(commissions).where(eq(commissions.id, v0.commissionId)).for("update");
     const [v] = await tx.select().from(quoteVersions).where(eq(quoteVersions.id, quoteId)).for("update");
     if (v.status !== "draft") throw conflict("This version has already been sent; make a new version to change it.");
+    assertStoredDigits("This quote cannot be sent", v);
     const [latest] = await tx.select({ id: quoteVersions.id }).from(quoteVersions).where(eq(quoteVersions.commissionId, c.id)).orderBy(desc(quoteVersions.number)).limit(1);
     if (latest.id !== v.id) throw conflict("A newer version exists; send that one.");
     if (c.state === "enquiry") await moveCommission(actor, c.id, "start_quote", { tx });

@@ -8,6 +8,8 @@ export function run(input: unknown): unknown {
   const quote = buildQuote(parseOrThrow(quoteInputSchema, input));
   return {
     currency: quote.currency,
+    /** ISO 4217 minor-unit digits of every amount below (JPY 0, GBP 2, KWD 3), from the pinned table */
+    minorDigits: quote.minorDigits,
     lines: quote.lines.map((l) => ({ label: l.label, amountMinor: l.amountMinor })),
     subtotalMinor: quote.subtotalMinor,
     taxMinor: quote.taxMinor,

@@ -11,6 +11,7 @@ import { createServer, type IncomingMessage, type Server, type ServerResponse } 
 import type { AddressInfo } from "node:net";
 import path from "node:path";
 import { parseArgs } from "node:util";
+import { PROVIDER_CURRENCIES, PROVIDER_THREE_DECIMAL, PROVIDER_ZERO_DECIMAL } from "../../lib/core/pricing/provider-currency";
 
 /** The test card that is always declined (as in Stripe's test mode). */
 export const DECLINED_CARD = "4000000000000002";
@@ -105,11 +106,34 @@ function stripeError(status: number, type: string, message: string, extra: Json 
 
 const escapeHtml = (s: string) => s.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/"/g, "&quot;");
 
-function formatAmount(minor: number, currency: string): string {
+// The provider's currency rules in its own API units (docs.stripe.com/currencies): zero-decimal amounts
+// are whole units; three-decimal amounts must end in 0; ISK is sent with two decimals that must be 00.
+// Written here in API terms, apart from the app's conversion (lib/core/pricing/provider-currency.ts),
+// so the tests check that conversion against the rules rather than against itself.
+const apiDigits = (code: string) => (PROVIDER_ZERO_DECIMAL.includes(code) ? 0 : PROVIDER_THREE_DECIMAL.includes(code) ? 3 : 2);
+
+/** null when the provider takes the amount, else its error (as the provider words it, roughly). */
+export function currencyAmountError(currency: string, amount: number, param: string): ReturnType<typeof stripeError> | null {
   const code = currency.toUpperCase();
-  const digits = new Intl.NumberFormat("en-GB", { style: "currency", currency: code }).resolvedOptions().maximumFractionDigits ?? 2;
-  const text = (minor / 10 ** digits).toFixed(digits);
-  return new Intl.NumberFormat("en-GB", { style: "currency", currency: code }).format(Number(text));
+  if (!/^[a-z]{3}$/.test(currency) || !PROVIDER_CURRENCIES.includes(code)) {
+    return stripeError(400, "invalid_request_error", `Invalid currency: ${currency}. Stripe currently supports these currencies: ${PROVIDER_CURRENCIES.map((c) => c.toLowerCase()).join(", ")}`, { param });
+  }
+  if (PROVIDER_THREE_DECIMAL.includes(code) && amount % 10 !== 0) {
+    return stripeError(400, "invalid_request_error", `Invalid amount. Amounts in ${code} must have a least-significant digit of 0 (round to the nearest ten: ${amount} cannot be charged).`, { code: "amount_invalid", param });
+  }
+  if (code === "ISK" && amount % 100 !== 0) {
+    return stripeError(400, "invalid_request_error", "Invalid amount. Currency ISK has become effectively zero-decimal and charged amounts must be evenly divisible by 100.", { code: "invalid_charge_amount_no_decimal_compatible", param });
+  }
+  return null;
+}
+
+function formatAmount(amount: number, currency: string): string {
+  const code = currency.toUpperCase();
+  const digits = apiDigits(code);
+  const abs = String(Math.abs(amount)).padStart(digits + 1, "0");
+  const text = `${amount < 0 ? "-" : ""}${abs.slice(0, abs.length - digits)}${digits > 0 ? "." + abs.slice(abs.length - digits) : ""}`;
+  // Exactly the provider's decimals (min = max), never the runtime's locale digits; Intl formats the string exactly.
+  return new Intl.NumberFormat("en-GB", { style: "currency", currency: code, minimumFractionDigits: digits, maximumFractionDigits: digits }).format(text as `${number}`);
 }
 
 export function signPayload(secret: string, payload: string, timestamp = now()): string {
@@ -215,7 +239,9 @@ export async function startPaymentsFake(opts: PaymentsFakeOptions): Promise<Paym
       if (!pd || !Number.isSafeInteger(unit) || unit < 0) {
         return stripeError(400, "invalid_request_error", `Invalid integer: line_items[${i}][price_data][unit_amount]`, { param: `line_items[${i}][price_data][unit_amount]` });
       }
-      const cur = String(pd.currency ?? "").toLowerCase();
+      const cur = String(pd.currency ?? "");
+      const refused = currencyAmountError(cur, unit, `line_items[${i}][price_data][unit_amount]`);
+      if (refused) return refused;
       if (currency && cur !== currency) return stripeError(400, "invalid_request_error", "All line items must share one currency.", { param: "line_items" });
       currency = cur;
       amount += unit * qty;
@@ -267,6 +293,8 @@ export async function startPaymentsFake(opts: PaymentsFakeOptions): Promise<Paym
     const remaining = Number(charge.amount) - Number(charge.amount_refunded);
     const amount = p.amount === undefined ? remaining : Number(p.amount);
     if (!Number.isSafeInteger(amount) || amount <= 0) return stripeError(400, "invalid_request_error", "Invalid positive integer: amount", { param: "amount" });
+    const refused = currencyAmountError(String(charge.currency), amount, "amount");
+    if (refused) return refused;
     if (amount > remaining) {
       return stripeError(400, "invalid_request_error", `Refund amount (${amount}) is greater than unrefunded amount on charge (${remaining}).`, { code: "amount_too_large", param: "amount" });
     }

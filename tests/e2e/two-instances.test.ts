@@ -106,18 +106,18 @@ describe("two instances on one database", () => {
     if (!secret) throw new Error("STRIPE_WEBHOOK_SECRET is not set (npm test sets it; with e2e-local.sh set E2E_PAYMENTS_PORT)");
     const setup = await withDb(async (c) => {
       const commissionId = await insertDemoCommission(c, { clientEmail: "priya@example.test", title: `Two instances ${tag}`, state: "quote_sent" });
-      const v = await c.query<{ id: string; deposit_minor: number; currency: string; studio_id: string }>(
-        `insert into quote_versions (studio_id, commission_id, number, status, currency, input, result, total_minor, deposit_minor, balance_minor, sent_at, accepted_at, accepted_name)
-         select studio_id, $1, 1, 'accepted', currency, input, result, total_minor, deposit_minor, balance_minor, now(), now(), 'Priya'
+      const v = await c.query<{ id: string; deposit_minor: number; currency: string; minor_digits: number; studio_id: string }>(
+        `insert into quote_versions (studio_id, commission_id, number, status, currency, minor_digits, input, result, total_minor, deposit_minor, balance_minor, sent_at, accepted_at, accepted_name)
+         select studio_id, $1, 1, 'accepted', currency, minor_digits, input, result, total_minor, deposit_minor, balance_minor, now(), now(), 'Priya'
          from quote_versions where status = 'accepted' and deposit_minor > 0 order by created_at limit 1
-         returning id, deposit_minor, currency, studio_id`,
+         returning id, deposit_minor, currency, minor_digits, studio_id`,
         [commissionId],
       );
       expect(v.rowCount).toBe(1);
       const p = await c.query<{ id: string }>(
-        `insert into payments (studio_id, commission_id, quote_version_id, kind, amount_minor, currency, checkout_session_id, idempotency_key)
-         values ($1, $2, $3, 'deposit', $4, $5, $6, $7) returning id`,
-        [v.rows[0].studio_id, commissionId, v.rows[0].id, v.rows[0].deposit_minor, v.rows[0].currency, `cs_two_${tag}`, `two-${tag}`],
+        `insert into payments (studio_id, commission_id, quote_version_id, kind, amount_minor, currency, minor_digits, checkout_session_id, idempotency_key)
+         values ($1, $2, $3, 'deposit', $4, $5, $6, $7, $8) returning id`,
+        [v.rows[0].studio_id, commissionId, v.rows[0].id, v.rows[0].deposit_minor, v.rows[0].currency, v.rows[0].minor_digits, `cs_two_${tag}`, `two-${tag}`],
       );
       return { commissionId, paymentId: p.rows[0].id, amount: v.rows[0].deposit_minor, currency: v.rows[0].currency };
     });

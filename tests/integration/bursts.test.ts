@@ -250,7 +250,7 @@ describe("bursts", { timeout: 60_000 }, () => {
       .returning({ id: quoteVersions.id, commissionId: quoteVersions.commissionId });
     const opened = await db
       .insert(payments)
-      .values(quotes.map((q) => ({ studioId: s.w.studioId, commissionId: q.commissionId, quoteVersionId: q.id, kind: "deposit" as const, amountMinor: v.depositMinor, currency: v.currency, idempotencyKey: `burst-${randomBytes(8).toString("hex")}` })))
+      .values(quotes.map((q) => ({ studioId: s.w.studioId, commissionId: q.commissionId, quoteVersionId: q.id, kind: "deposit" as const, amountMinor: v.depositMinor, currency: v.currency, minorDigits: v.minorDigits, idempotencyKey: `burst-${randomBytes(8).toString("hex")}` })))
       .returning({ id: payments.id, commissionId: payments.commissionId });
     const payloads = [
       model,

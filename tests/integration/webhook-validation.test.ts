@@ -32,7 +32,7 @@ beforeAll(async () => {
   sessionId = `cs_test_${randomBytes(6).toString("hex")}`;
   const [p] = await db
     .insert(payments)
-    .values({ studioId: w.studioId, commissionId: w.commissionA, kind: "deposit", amountMinor: 5000, currency: "GBP", checkoutSessionId: sessionId, idempotencyKey: `it-${randomUUID()}` })
+    .values({ studioId: w.studioId, commissionId: w.commissionA, kind: "deposit", amountMinor: 5000, currency: "GBP", minorDigits: 2, checkoutSessionId: sessionId, idempotencyKey: `it-${randomUUID()}` })
     .returning();
   paymentId = p.id;
 });

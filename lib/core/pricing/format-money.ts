@@ -17,6 +17,20 @@ export function minorToDecimalString(minor: number, currency: string): `${number
   return `${negative ? "-" : ""}${whole}${digits > 0 ? "." + fraction : ""}` as `${number}`;
 }
 
+/**
+ * The inverse of minorToDecimalString: "12.34" GBP → 1234, "-0.050" KWD → −50. Refuses (null) text with
+ * more decimals than the currency has, a missing whole part, or a result past 2^53.
+ */
+export function decimalStringToMinor(text: string, currency: string): number | null {
+  const digits = getMinorDigits(currency);
+  const m = /^(-?)(\d+)(?:\.(\d+))?$/.exec(text);
+  if (!m || (m[3] !== undefined && (digits === 0 || m[3].length > digits))) return null;
+  const units = BigInt(m[2] + (m[3] ?? "").padEnd(digits, "0"));
+  const minor = Number(m[1] ? -units : units);
+  return Number.isSafeInteger(minor) ? minor : null;
+}
+
+/** Formats with exactly the ISO 4217 digits (min = max), so the locale data cannot add or drop any. */
 export function formatMoney(minor: number, currency: string, locale = "en-GB", options: FormatMoneyOptions = {}): string {
   const digits = getMinorDigits(currency);
   const formatter = new Intl.NumberFormat(locale, {

@@ -1,8 +1,9 @@
 // Pricing: integer money, quote lines, tax, deposit and balance, change notes, cancellation refunds.
-export { isCurrencyCode, assertCurrency, getMinorDigits } from "./currency";
+export { isCurrencyCode, assertCurrency, getMinorDigits, getCurrencyName, storedDigitsProblem, ISO4217_EDITION } from "./currency";
+export { ISO4217, type Iso4217Entry } from "./iso4217";
 export { divideRounded } from "./rounding";
 export { parseExactDecimal, percentToPpm, PPM_WHOLE, PPM_PER_PERCENT } from "./decimal";
-export { formatMoney, minorToDecimalString } from "./format-money";
+export { formatMoney, minorToDecimalString, decimalStringToMinor } from "./format-money";
 export {
   buildQuote,
   getLabourLines,
