@@ -37,6 +37,7 @@ export function policyFrom(settings: StudioSettings, currency: string): QuotePol
     pricesIncludeTax: settings.pricesIncludeTax,
     depositPercent: settings.depositPercent,
     rates: settings.rates,
+    p80Factors: settings.p80Factors,
   };
 }
 
