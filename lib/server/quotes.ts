@@ -17,6 +17,7 @@ import { quoteSentMessage } from "@/templates/email/money";
 import { assertCan, can, type Actor } from "./authz";
 import { AppError, conflict, notFound, nullIfNotFound } from "./errors";
 import { enqueueMail } from "./outbox";
+import { labourLevelNote } from "@/lib/core/pricing/labour-level";
 import { renderPdf } from "./pdf";
 import { getCommissionFor, getCommissionMailParties } from "./queries/commissions";
 import { loadStudioSettings } from "./settings";
@@ -233,6 +234,7 @@ export async function renderQuotePdf(v: QuoteVersion): Promise<Buffer> {
       lines: q.lines.map((l) => ({ label: l.label, amount: formatMoney(l.amountMinor, q.currency) })),
       totals: quoteTotalsRows(q),
       taxNote: taxNote(q),
+      labourNote: labourLevelNote(q),
       message: v.messageToClient,
       portalUrl: portalUrl(v.commissionId),
     }),
