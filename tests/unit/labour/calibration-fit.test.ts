@@ -123,6 +123,18 @@ describe("P80 from leave-one-out ratios", () => {
 });
 
 describe("calibration boundaries", () => {
+  test("beyond 60 pieces the spread comes from ten folds: every unrejected piece still gets one out-of-sample ratio", () => {
+    const r = calibrateRates(makeHistory({ seed: 31, count: 80, noise: 0.1, outlierEvery: 0 }));
+    for (const s of STAGES) {
+      expect(r.stages[s].pieces).toBeGreaterThan(60);
+      expect(r.stages[s].spread!.pieces).toBeGreaterThanOrEqual(r.stages[s].pieces - 2);
+      expect(r.stages[s].spread!.pieces).toBeLessThanOrEqual(r.stages[s].pieces);
+      expect(r.p80Factors[s]).toBeGreaterThanOrEqual(1);
+      expect(r.p80Factors[s]).toBeLessThan(1.15);
+    }
+  });
+
+
   test("fewer pieces than the minimum: base rates, the default P80, no spread, and a note saying so", () => {
     const r = calibrateRates(makeHistory({ seed: 9, count: 4, noise: 0.1, outlierEvery: 0 }), { minPieces: 6 });
     expect(r.rates).toEqual({ ...defaultRates });
