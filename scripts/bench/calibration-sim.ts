@@ -110,6 +110,8 @@ export interface CoverageRun {
   /** lowest P80 and the P50 range over the single histories, per stage, % */
   worstP80: Record<Stage, number>;
   p50Range: Record<Stage, [number, number]>;
+  /** single histories whose P80 covered fewer than 75 % of their fresh pieces, per stage */
+  historiesP80Below75: Record<Stage, number>;
 }
 
 interface Tally {
@@ -130,6 +132,7 @@ export function simulateCoverage(o: { seed: number; sigma: number; historyPieces
   const overall: Tally = { p50: 0, p80: 0, n: 0 };
   const worstP80 = Object.fromEntries(STAGES.map((s) => [s, 100])) as Record<Stage, number>;
   const p50Range = Object.fromEntries(STAGES.map((s) => [s, [100, 0]])) as Record<Stage, [number, number]>;
+  const below75 = Object.fromEntries(STAGES.map((s) => [s, 0])) as Record<Stage, number>;
   for (let h = 0; h < o.histories; h++) {
     const history = makeLoggedPieces(rnd, o.historyPieces, o.sigma);
     // Through the verbs, as a studio's data would go: calibrate's rates and p80Factors are estimate's input.
@@ -160,6 +163,7 @@ export function simulateCoverage(o: { seed: number; sigma: number; historyPieces
     }
     for (const s of STAGES) {
       worstP80[s] = Math.min(worstP80[s], pct(mine[s].p80, mine[s].n));
+      if (mine[s].n > 0 && mine[s].p80 / mine[s].n < 0.75) below75[s]++;
       p50Range[s] = [Math.min(p50Range[s][0], pct(mine[s].p50, mine[s].n)), Math.max(p50Range[s][1], pct(mine[s].p50, mine[s].n))];
     }
   }
@@ -173,6 +177,7 @@ export function simulateCoverage(o: { seed: number; sigma: number; historyPieces
     overall: cover(overall),
     worstP80,
     p50Range,
+    historiesP80Below75: below75,
   };
 }
 
