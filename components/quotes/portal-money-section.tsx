@@ -2,6 +2,7 @@
 import { Card } from "@/components/ui/card";
 import { Notice } from "@/components/ui/notice";
 import { formatMoney } from "@/lib/core/pricing/format-money";
+import { labourLevelNote } from "@/lib/core/pricing/labour-level";
 import { asClient, type Actor } from "@/lib/server/authz";
 import { documentLabel, listCommissionPayments, listDocumentsFor } from "@/lib/server/payments";
 import { listQuotesFor, quoteOf, todayIso } from "@/lib/server/quotes";
@@ -41,6 +42,11 @@ export async function PortalMoneySection({ actor, commissionId, returned }: { ac
           {current.status === "changes_requested" ? <Notice tone="info" title="You asked for changes">The studio will send a new version.</Notice> : null}
           {current.messageToClient ? <p className="my-3 whitespace-pre-line">{current.messageToClient}</p> : null}
           <QuoteLines quote={q} caption={`Quote for this commission, in ${q.currency}`} />
+          {labourLevelNote(q) ? (
+            <p className="mt-2 text-sm text-bark" data-testid="quote-labour-level">
+              {labourLevelNote(q)}
+            </p>
+          ) : null}
           <p className="mt-3">
             <a href={`/api/quotes/${current.id}/pdf`} download>
               Download the quote (PDF)

@@ -16,6 +16,7 @@ import { isProviderCurrency, withProviderDeposit } from "@/lib/core/pricing/prov
 import { diffQuotes } from "@/lib/core/pricing/diff-quotes";
 import { explainChange } from "@/lib/core/pricing/explain-change";
 import { formatMoney, minorToDecimalString } from "@/lib/core/pricing/format-money";
+import { labourLevelForStudio, labourLevelNote } from "@/lib/core/pricing/labour-level";
 import { majorToMinor } from "@/lib/schemas/money";
 import { formatMinutes } from "@/lib/core/production/time-entries";
 
@@ -431,8 +432,9 @@ export function QuoteBuilder(props: {
                   {depositNote}
                 </p>
               ) : null}
-              <p className="mt-3 text-sm text-bark">
-                Labour {preview.estimate.totals.p50Hours} h typical, {preview.estimate.totals.p80Hours} h cautious; priced at the {policy.labourPolicy === "p80" ? "cautious (P80)" : "typical (P50)"} figure.
+              <p className="mt-3 text-sm text-bark" data-testid="quote-labour-level">
+                Labour {preview.estimate.totals.p50Hours} h typical (P50), {preview.estimate.totals.p80Hours} h cautious (P80). {labourLevelForStudio(policy.labourPolicy)}{" "}
+                The client sees: &ldquo;{labourLevelNote(preview.quote) ?? "no labour on this quote"}&rdquo; <a href="/studio/settings#pricePolicy">Change in settings</a>.
               </p>
               {/* Per piece, rounded as production rounds each piece's estimate, so the board shows the same figures. */}
               <p className="mt-1 text-sm tabular-nums" data-testid="quote-knitting">

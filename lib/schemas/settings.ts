@@ -2,6 +2,7 @@
 // has a default. Rates are the studio's own (defaults in lib/core/labour are not standards).
 import { z } from "zod";
 import { defaultRates, type LabourRates } from "@/lib/core/labour/default-rates";
+import { p80FactorsSchema } from "@/lib/core/labour/schemas";
 
 const nonNegative = z.number().min(0, "Use 0 or more.");
 const positive = z.number().positive("Use a number above 0.");
@@ -24,7 +25,7 @@ export const labourRatesSchema = z.object({
 
 export const studioSettingsSchema = z.object({
   hourlyRateMinor: z.number().int().min(0).default(2200),
-  /** which labour figure prices a quote */
+  /** which labour figure prices a quote; P80 unless the studio chooses (settings and every quote say which) */
   pricePolicy: z.enum(["p50", "p80"]).default("p80"),
   taxRatePercent: z.number().min(0).max(100).default(0),
   pricesIncludeTax: z.boolean().default(true),
@@ -36,6 +37,8 @@ export const studioSettingsSchema = z.object({
   floatLimitStitches: z.number().int().positive().max(50).default(5),
   floatLimitCm: z.number().positive().max(20).default(2.5),
   rates: labourRatesSchema.default({ ...defaultRates }),
+  /** P80 ÷ P50 per stage from an accepted calibration; a stage left out uses the default ×1.25 */
+  p80Factors: p80FactorsSchema.default({}),
   /** cancellation: share of the deposit refunded before knitting starts (percent) */
   depositRefundBeforeKnittingPercent: z.number().min(0).max(100).default(100),
 });

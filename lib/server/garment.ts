@@ -63,6 +63,7 @@ export function featureOptionsFrom(settings: StudioSettings) {
   return {
     proofRounds: 1,
     rates: settings.rates,
+    p80Factors: settings.p80Factors,
     floatLimitStitches: settings.floatLimitStitches,
     floatLimitCm: settings.floatLimitCm,
     carryLimitCm: settings.carryLimitCm,

@@ -5,7 +5,8 @@ import "server-only";
 import { and, asc, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { commissions, labourHistory, payments, pieces, quoteVersions, rateProposals, studios, timeEntries } from "@/db/schema";
-import { calibrateRates, type LabourRates, type LoggedPiece, type PieceFeatures } from "@/lib/core/labour";
+import { calibrateRates, resolveP80Factors, type LabourRates, type LoggedPiece, type PieceFeatures } from "@/lib/core/labour";
+import { p80FactorsSchema } from "@/lib/core/labour/schemas";
 import { estimateErrorPercent } from "@/lib/core/production";
 import { WORK_STAGES } from "@/lib/schemas/production";
 import { assertCan, type Actor } from "./authz";
@@ -156,7 +157,7 @@ export async function getCalibration(actor: Actor, studioId: string) {
   const history = await loggedPieces(studioId);
   const result = history.length ? calibrateRates(history, { baseRates: settings.rates }) : null;
   const proposals = await db.select().from(rateProposals).where(eq(rateProposals.studioId, studioId)).orderBy(desc(rateProposals.createdAt)).limit(10);
-  return { current: settings.rates, pieces: history.length, result, proposals };
+  return { current: settings.rates, currentP80Factors: resolveP80Factors(settings.p80Factors), pieces: history.length, result, proposals };
 }
 
 /** Owner: turn the current calibration into a proposal to accept or reject. */
@@ -187,7 +188,11 @@ export async function decideProposal(actor: Actor, studioId: string, proposalId:
       .set({ status: decision, decidedAt: new Date(), decidedBy: actor.userId })
       .where(eq(rateProposals.id, p.id))
       .returning();
-    if (decision === "accepted") await updateStudioSettings(actor, studioId, { rates: p.rates as unknown as LabourRates }, tx);
+    if (decision === "accepted") {
+      // The P80 margins measured with these rates go with them (older proposals carry none: keep the current ones).
+      const factors = p80FactorsSchema.safeParse((p.report as { p80Factors?: unknown } | null)?.p80Factors);
+      await updateStudioSettings(actor, studioId, { rates: p.rates as unknown as LabourRates, ...(factors.success ? { p80Factors: factors.data } : {}) }, tx);
+    }
     return updated;
   });
 }

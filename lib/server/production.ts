@@ -95,7 +95,7 @@ export async function createPieces(
       throw new AppError(422, "invalid_input", (err as Error).message, { layout: [(err as Error).message] });
     }
     const rows = layout.pieces.map((p, i) => {
-      const { estimate, dryingHours } = estimatePiece(p.features, prepared.settings.rates);
+      const { estimate, dryingHours } = estimatePiece(p.features, prepared.settings.rates, prepared.settings.p80Factors);
       return {
         studioId: c.studioId,
         commissionId: c.id,
@@ -330,7 +330,7 @@ export async function getBoard(actor: Actor, studioId: string) {
         : pieceLayouts(w.garment as Garment, garment.pieces).map((l) => ({
             id: l.id,
             label: l.label,
-            pieces: l.pieces.map((p) => ({ name: p.name, ...estimatePiece(p.features, settings!.rates) })),
+            pieces: l.pieces.map((p) => ({ name: p.name, ...estimatePiece(p.features, settings!.rates, settings!.p80Factors) })),
           }));
     waiting.push({ ...w, layouts, note: garment instanceof Error ? garment.message : garment.note });
   }
@@ -668,7 +668,7 @@ export async function updatePieceFeatures(actor: Actor, pieceId: string, raw: un
     // A drying time set for this piece at set-up is kept; the form does not show it.
     const kept = typeof piece.features.dryingHours === "number" ? { dryingHours: piece.features.dryingHours } : {};
     const features: PieceFeatures = { ...kept, ...input.features, label: piece.name };
-    const { estimate, dryingHours } = estimatePiece(features, settings.rates);
+    const { estimate, dryingHours } = estimatePiece(features, settings.rates, settings.p80Factors);
     const [updated] = await tx
       .update(pieces)
       .set({ features: featuresForStorage(features), estimate, dryingHours, updatedAt: new Date() })

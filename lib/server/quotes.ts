@@ -19,6 +19,7 @@ import { assertCan, can, type Actor } from "./authz";
 import { AppError, conflict, notFound, nullIfNotFound } from "./errors";
 import { assertStoredDigits } from "./money-guard";
 import { enqueueMail } from "./outbox";
+import { labourLevelNote } from "@/lib/core/pricing/labour-level";
 import { renderPdf } from "./pdf";
 import { getCommissionFor, getCommissionMailParties } from "./queries/commissions";
 import { loadStudioSettings } from "./settings";
@@ -39,6 +40,7 @@ export function policyFrom(settings: StudioSettings, currency: string): QuotePol
     pricesIncludeTax: settings.pricesIncludeTax,
     depositPercent: settings.depositPercent,
     rates: settings.rates,
+    p80Factors: settings.p80Factors,
   };
 }
 
@@ -241,6 +243,7 @@ export async function renderQuotePdf(v: QuoteVersion): Promise<Buffer> {
       lines: q.lines.map((l) => ({ label: l.label, amount: formatMoney(l.amountMinor, q.currency) })),
       totals: quoteTotalsRows(q),
       taxNote: taxNote(q),
+      labourNote: labourLevelNote(q),
       message: v.messageToClient,
       portalUrl: portalUrl(v.commissionId),
     }),

@@ -149,7 +149,7 @@ async function loadQueue(studioId: string, members: MemberAvailabilityView[], to
       // Not in production yet: the garment's own pieces (its sizing, its design) at the studio's rates.
       const garment = await getCommissionGarment(c, { settings });
       garment.pieces.forEach((f, i) => {
-        const { estimate, dryingHours } = estimatePiece(f, settings.rates);
+        const { estimate, dryingHours } = estimatePiece(f, settings.rates, settings.p80Factors);
         const id = `${c.id}:${i}`;
         queue.push({ id, commissionId: c.id, due, stages: stagesFor(estimate, "queued", {}), dryingHours });
         labels.push({ ...base, pieceId: id, pieceName: f.label ?? `Piece ${i + 1}`, planned: true });
@@ -212,7 +212,7 @@ export async function getEarliestPromiseDate(
   const settings = await loadStudioSettings(studioId);
   const { queue } = await loadQueue(studioId, members, today, now);
   const fresh: NewPiece[] = newPieces.map((p, i) => {
-    const { estimate, dryingHours } = estimatePiece(p.features, settings.rates);
+    const { estimate, dryingHours } = estimatePiece(p.features, settings.rates, settings.p80Factors);
     const stages: NewPiece["stages"] = {};
     for (const s of WORK_STAGES) {
       const minutes = estimate[s]?.p80 ?? 0;

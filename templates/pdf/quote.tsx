@@ -13,6 +13,8 @@ export interface QuoteDocProps {
   lines: DocLine[];
   totals: { label: string; amount: string; strong?: boolean }[];
   taxNote: string;
+  /** which labour figure the quote charges, in plain words (lib/core/pricing/labour-level.ts) */
+  labourNote?: string | null;
   message: string;
   portalUrl: string;
 }
@@ -32,6 +34,7 @@ export function QuoteDocument(p: QuoteDocProps) {
         {p.message ? <Text style={styles.block}>{p.message}</Text> : null}
         <LineTable lines={p.lines} />
         <Totals rows={p.totals} />
+        {p.labourNote ? <Text style={[styles.block, styles.small]}>{p.labourNote}</Text> : null}
         <Text style={[styles.block, styles.small]}>{p.taxNote}</Text>
         <Text style={[styles.block, styles.small]}>
           Accept this quote or ask for changes in your portal: {p.portalUrl}. The deposit books the work; the balance is due when the piece is ready.

@@ -135,6 +135,11 @@ describe("insights and calibration", () => {
     const rates = (await loadStudioSettings(w.studioId)).rates;
     expect(rates.plainStitchesPerMinute).toBeLessThan(25);
     expect(rates.plainStitchesPerMinute).toBe((p2.rates as { plainStitchesPerMinute: number }).plainStitchesPerMinute);
+    // The P80 margins measured with those rates are accepted with them and price the quotes from then on.
+    const accepted = await loadStudioSettings(w.studioId);
+    expect(accepted.p80Factors).toEqual((p2.report as { p80Factors: Record<string, number> }).p80Factors);
+    expect(accepted.p80Factors.knitting).toBeGreaterThanOrEqual(1);
+    expect(cal.result!.accuracy!.overall.p80Coverage).not.toBeNull();
     await expect(decideProposal(owner, w.studioId, p2.id, "rejected")).rejects.toMatchObject({ status: 409 });
     const insights = await getInsights(owner, w.studioId);
     expect(insights.accuracy.length).toBeGreaterThan(0);

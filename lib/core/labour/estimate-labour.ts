@@ -30,6 +30,8 @@ export interface StageEstimate {
 export interface PieceEstimate {
   label?: string;
   p50Minutes: Record<Stage, number>;
+  /** this piece's P80 per stage (its P50 × the stage's factor), e.g. to check calibration piece by piece */
+  p80Minutes: Record<Stage, number>;
 }
 
 export interface LabourEstimate {
@@ -70,12 +72,14 @@ export function estimateLabour(input: LabourEstimateInput): LabourEstimate {
   const exact = Object.fromEntries(STAGES.map((s) => [s, 0])) as Record<Stage, number>;
   const pieces: PieceEstimate[] = filled.map((piece) => {
     const p50Minutes = {} as Record<Stage, number>;
+    const p80Minutes = {} as Record<Stage, number>;
     for (const stage of STAGES) {
       const m = getStageMinutes(stage, piece, rates);
       exact[stage] += m;
       p50Minutes[stage] = toWholeMinutes(m);
+      p80Minutes[stage] = toWholeMinutes(m * p80Factors[stage]);
     }
-    return { label: piece.label, p50Minutes };
+    return { label: piece.label, p50Minutes, p80Minutes };
   });
 
   const stages = {} as Record<Stage, StageEstimate>;

@@ -3,7 +3,7 @@
 // features the garment reads for each (lib/core/design-garment). No typical figures: the pieces
 // and their counts are the ones the quote priced.
 import type { LabourRates } from "../labour/default-rates";
-import { estimateLabour } from "../labour/estimate-labour";
+import { estimateLabour, type P80Factors } from "../labour/estimate-labour";
 import type { PieceFeatures } from "../labour/piece-features";
 
 export type Garment = "mittens" | "hat" | "pullover";
@@ -58,8 +58,9 @@ export type PieceEstimateMap = Record<string, { p50: number; p80: number }>;
 export function estimatePiece(
   features: PieceFeatures,
   rates?: Partial<LabourRates>,
+  p80Factors?: Partial<P80Factors>,
 ): { estimate: PieceEstimateMap; dryingHours: number } {
-  const e = estimateLabour({ pieces: [features], rates });
+  const e = estimateLabour({ pieces: [features], rates, p80Factors });
   const estimate: PieceEstimateMap = {};
   for (const s of PIECE_WORK_STAGES) estimate[s] = { p50: e.stages[s].p50Minutes, p80: e.stages[s].p80Minutes };
   return { estimate, dryingHours: features.blocked === false ? 0 : Math.round(e.dryingHours) };

@@ -42,6 +42,27 @@ describe("core verb calibrate", () => {
     expect(out.rates.plainStitchesPerMinute).toBeLessThan(39);
   });
 
+  test("its rates and p80Factors feed the estimate verb as they are (through JSON), with coverage in the accuracy report", () => {
+    const history = makeHistory({ seed: 6, count: 30, noise: 0.1, outlierEvery: 0 });
+    const out = JSON.parse(JSON.stringify(runCalibrate({ pieces: history }))) as {
+      rates: Record<string, number>;
+      p80Factors: Record<string, number>;
+      stages: Record<string, { spread: { medianRatio: number } | null }>;
+      accuracy: { stages: Record<string, { p50Coverage: number; p80Coverage: number }>; overall: { p50Coverage: number; p80Coverage: number } };
+    };
+    const est = runEstimate({ pieces: [history[0].features], rates: out.rates, p80Factors: out.p80Factors }) as {
+      p80Factors: Record<string, number>;
+      stages: Record<string, { p50Minutes: number; p80Minutes: number }>;
+      pieces: { p50Minutes: Record<string, number>; p80Minutes: Record<string, number> }[];
+    };
+    expect(est.p80Factors).toEqual(out.p80Factors);
+    expect(est.pieces[0].p80Minutes.knitting).toBe(est.stages.knitting.p80Minutes);
+    expect(est.pieces[0].p50Minutes.knitting).toBe(est.stages.knitting.p50Minutes);
+    expect(out.stages.knitting.spread).not.toBeNull();
+    expect(out.accuracy.overall.p80Coverage).toBeGreaterThanOrEqual(out.accuracy.overall.p50Coverage);
+    expect(Object.keys(out.accuracy.stages.knitting)).toEqual(expect.arrayContaining(["before", "after", "pieces", "p50Coverage", "p80Coverage"]));
+  });
+
   test("refuses a logged stage that does not exist", () => {
     expect(() => runCalibrate({ pieces: [{ features: {}, loggedMinutes: { dyeing: 30 } }] })).toThrow(/loggedMinutes: Unrecognized key: "dyeing"/);
   });

@@ -49,10 +49,14 @@ export function SettingsForm({ currency, defaults, rates }: { currency: string; 
           <label htmlFor="pricePolicy" className="font-semibold">
             Labour figure that prices a quote
           </label>
-          <select id="pricePolicy" className="rounded-md border border-bark/40 bg-white px-3 py-2" {...form.register("pricePolicy")}>
-            <option value="p80">Cautious (P80: four jobs in five finish within it)</option>
-            <option value="p50">Typical (P50)</option>
+          <select id="pricePolicy" aria-describedby="pricePolicy-help" className="rounded-md border border-bark/40 bg-white px-3 py-2" {...form.register("pricePolicy")}>
+            <option value="p80">Cautious (P80: four jobs in five finish within it), the default</option>
+            <option value="p50">Typical (P50: half finish within it)</option>
           </select>
+          <p id="pricePolicy-help" className="text-sm text-bark">
+            A new studio charges the cautious figure until it chooses. Every quote, its PDF and the client&apos;s page say which figure it charges. The
+            cautious margin per stage comes from your calibration once you accept one (Insights), otherwise P50 × 1.25.
+          </p>
         </div>
         <Field label={`Design fee (${currency})`} inputMode="decimal" {...form.register("designFee")} errors={errs("designFee")} />
         <Field label="Quotes are valid for (days)" inputMode="numeric" {...form.register("quoteValidDays")} errors={errs("quoteValidDays")} />
