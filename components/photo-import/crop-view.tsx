@@ -98,6 +98,8 @@ export function CropView({ image, box, aspect, onChange, describedBy, invalid }:
         aria-describedby={describedBy}
         aria-invalid={invalid || undefined}
         data-testid="crop-box"
+        data-box={`${box.x},${box.y},${box.width},${box.height}`}
+        data-image={`${image.width},${image.height}`}
         onKeyDown={onKey}
         className="absolute cursor-move border-2 border-white outline outline-2 outline-peat focus-visible:outline-4 focus-visible:outline-loch"
         style={{ left: pct(box.x, image.width), top: pct(box.y, image.height), width: pct(box.width, image.width), height: pct(box.height, image.height), boxShadow: "0 0 0 9999px rgba(31,26,23,0.45)" }}

@@ -147,8 +147,12 @@ export function PhotoImport(props: PhotoImportProps) {
     setChosenYarns(ticked.length >= 2 ? ticked : props.yarns.slice(0, 2).map((y) => y.id));
     reset();
     setOpen(true);
-    dialog.current?.showModal();
   };
+  // Opened once its content is there, so the browser focuses the first control inside it.
+  useEffect(() => {
+    const d = dialog.current;
+    if (open && d && !d.open) d.showModal();
+  }, [open]);
   const close = () => {
     dialog.current?.close();
   };
