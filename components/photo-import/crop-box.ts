@@ -98,8 +98,11 @@ export function boxForKey(box: Box, key: string, shift: boolean, step: number, a
   return moveBox(box, m[0] * step, m[1] * step, imageW, imageH);
 }
 
-/** The pixel size to scale a crop to before quantising: at most `times` the target in each direction, never up. */
+/**
+ * The pixel size to scale a crop to before quantising: about `times` the target in each direction,
+ * one scale for both (so the proportions stay), never scaled up.
+ */
 export function workingSize(crop: Pick<Box, "width" | "height">, stitches: number, rows: number, times = 4): { width: number; height: number } {
   const scale = Math.min(1, Math.max((stitches * times) / crop.width, (rows * times) / crop.height));
-  return { width: Math.max(stitches, Math.round(crop.width * scale)), height: Math.max(rows, Math.round(crop.height * scale)) };
+  return { width: Math.max(1, Math.round(crop.width * scale)), height: Math.max(1, Math.round(crop.height * scale)) };
 }

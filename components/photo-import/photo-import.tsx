@@ -427,7 +427,7 @@ export function PhotoImport(props: PhotoImportProps) {
                   <legend className="px-1 font-semibold">2. Crop</legend>
                   <p id={id("crop-hint")} className="mb-2 max-w-prose text-sm text-bark">
                     The box keeps the knitted area&apos;s true shape ({size.ok ? `${size.width} stitches by ${size.height} rows` : "choose a size"} at {gauge.stitchesPer10cm} stitches and{" "}
-                    {gauge.rowsPer10cm} rows per 10 cm). Drag it to move it, drag its corner to resize it. Keyboard: arrows move it, Shift with arrows resizes it, Alt for small steps.
+                    {gauge.rowsPer10cm} rows per 10 cm). Drag it to move it, drag its corner to resize it. Keyboard: arrows move it; Shift with right or up makes it larger, with left or down smaller; Alt for small steps.
                   </p>
                   <CropView image={image} box={box} aspect={aspect} onChange={setBox} describedBy={id("crop-hint")} invalid={!!errors.crop} />
                   <p className="text-sm" aria-live="polite" data-testid="crop-size">
@@ -567,9 +567,10 @@ export function PhotoImport(props: PhotoImportProps) {
                 </div>
                 {answer.report.notes.length ? (
                   <ul className="list-disc pl-5 text-sm" data-testid="photo-import-notes">
-                    {answer.report.notes.map((n) => (
-                      <li key={n}>{n.charAt(0).toUpperCase() + n.slice(1)}.</li>
-                    ))}
+                    {answer.report.notes.map((n) => {
+                      const said = n.replace(/; cropForGauge .*$/, ""); // the box here always keeps the true proportions
+                      return <li key={n}>{said.charAt(0).toUpperCase() + said.slice(1)}.</li>;
+                    })}
                   </ul>
                 ) : null}
                 {answer.report.isolatedReplaced ? <p className="text-sm">Clean-up changed {answer.report.isolatedReplaced} single stray stitches.</p> : null}

@@ -168,7 +168,7 @@ describe("import from a photo", () => {
       for (const n of [YARN.white.name, YARN.green.name, YARN.red.name]) expect(table).toContain(n);
       await expectAccessible(page);
       mkdirSync("test-results/e2e", { recursive: true });
-      await dialog.screenshot({ path: "test-results/e2e/photo-import-preview.png" });
+      await preview.screenshot({ path: "test-results/e2e/photo-import-preview.png" });
 
       // Accept: a new version whose chart is the motif, stitch for stitch.
       await dialog.getByRole("button", { name: "Accept as a new version" }).click();
@@ -187,5 +187,14 @@ describe("import from a photo", () => {
       const restored = (await head(page, designId)).charts[0].chart;
       expect(names(restored)).toEqual(names(original.charts[0].chart));
       await expectAccessible(page);
-    }));
+
+      // An approved (locked) design cannot import.
+      const last = await head(page, designId);
+      await withDb((c) => c.query("update designs set locked_version_id = $1 where id = $2", [last.id, designId]));
+      await page.reload();
+      const button = page.getByRole("button", { name: "Import from a photo…" });
+      await expect.poll(() => button.count(), POLL).toBe(1);
+      expect(await button.isDisabled()).toBe(true);
+      expect(await page.getByText("an approved design cannot import a photo").count()).toBe(1);
+    }, { viewport: { width: 1400, height: 2000 } }));
 });

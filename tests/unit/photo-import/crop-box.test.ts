@@ -54,5 +54,7 @@ describe("the crop box", () => {
   test("a large crop is scaled to a few times the chart before quantising, a small one is left alone", () => {
     expect(workingSize({ width: 3000, height: 4000 }, 60, 80)).toEqual({ width: 240, height: 320 });
     expect(workingSize({ width: 100, height: 120 }, 60, 80)).toEqual({ width: 100, height: 120 });
+    // a crop smaller than the chart is not stretched in one direction only
+    expect(workingSize({ width: 30, height: 20 }, 60, 80)).toEqual({ width: 30, height: 20 });
   });
 });
