@@ -576,7 +576,7 @@ export function PhotoImport(props: PhotoImportProps) {
                 {answer.report.isolatedReplaced ? <p className="text-sm">Clean-up changed {answer.report.isolatedReplaced} single stray stitches.</p> : null}
                 {answer.cellsOutside ? <p className="text-sm">{answer.cellsOutside} stitches outside the area&apos;s shape are never knitted; they are left in the first colour.</p> : null}
                 <div className="overflow-x-auto">
-                  <table className="w-full text-sm" data-testid="photo-import-colours">
+                  <table className="w-full text-sm [&_td]:px-2 [&_th]:px-2" data-testid="photo-import-colours">
                     <caption className="mb-1 text-left font-semibold">Stitches per colour</caption>
                     <thead>
                       <tr className="border-b border-bark/30 text-left">
