@@ -5,7 +5,7 @@ import { getCiede2000, hexToLab, type Lab } from "../colourwork/ciede2000";
 import { isPaletteKey, type ChartV1 } from "../chart/format";
 import { MAX_HEIGHT, MAX_PALETTE, MAX_WIDTH, type Chart, type Gauge, type PaletteColour } from "../chart/model";
 import { labToHex, linearToLab, SRGB_TO_LINEAR } from "./colour-space";
-import { kMeans } from "./kmeans";
+import { chooseColours, type Seeding } from "./choose-colours";
 import { PhotoError } from "./photo-error";
 import { resampleArea, type PixelBox } from "./resample";
 
@@ -42,7 +42,9 @@ export interface PhotoToChartOptions {
     /** average in linear light (default true) or on sRGB values */
     linear?: boolean;
   };
-  /** PRNG seed for choosing colours (default fixed) */
+  /** how colours are seeded before k-means (default density peaks; see README) */
+  seeding?: Seeding;
+  /** PRNG seed for k-means++ seeding (default fixed) */
   seed?: number;
 }
 
@@ -77,7 +79,7 @@ export interface PhotoReport {
 }
 
 /** Fraction of each stitch's box left out on every side when sampling (see README: accuracy). */
-export const DEFAULT_INSET = 0.15;
+export const DEFAULT_INSET = 0.25;
 export const MIN_COLOURS = 2;
 export const MAX_COLOURS = MAX_PALETTE;
 
@@ -275,35 +277,6 @@ function assignNearest(labs: Float64Array, targets: Lab[]): { labels: Uint8Array
   return { labels, distance };
 }
 
-/** Centres recomputed from the cells whose four neighbours share their label (unmixed by blur), where a cluster has enough of them. */
-function interiorCentres(labs: Float64Array, labels: Int32Array, k: number, width: number, height: number, centres: Float64Array): Float64Array {
-  const sums = new Float64Array(k * 3);
-  const count = new Float64Array(k);
-  const total = new Float64Array(k);
-  for (let r = 0; r < height; r++) {
-    for (let c = 0; c < width; c++) {
-      const i = r * width + c;
-      const l = labels[i];
-      total[l]++;
-      if (c === 0 || c === width - 1 || r === 0 || r === height - 1) continue;
-      if (labels[i - 1] !== l || labels[i + 1] !== l || labels[i - width] !== l || labels[i + width] !== l) continue;
-      sums[l * 3] += labs[i * 3];
-      sums[l * 3 + 1] += labs[i * 3 + 1];
-      sums[l * 3 + 2] += labs[i * 3 + 2];
-      count[l]++;
-    }
-  }
-  const out = centres.slice();
-  for (let j = 0; j < k; j++) {
-    if (count[j] >= 3 && count[j] >= 0.05 * total[j]) {
-      out[j * 3] = sums[j * 3] / count[j];
-      out[j * 3 + 1] = sums[j * 3 + 1] / count[j];
-      out[j * 3 + 2] = sums[j * 3 + 2] / count[j];
-    }
-  }
-  return out;
-}
-
 /** A stitch whose eight neighbours (those inside the chart) all differ from it takes their most common colour. */
 export function removeIsolatedStitches(labels: Uint8Array, width: number, height: number): { labels: Uint8Array; replaced: number } {
   const out = labels.slice();
@@ -378,8 +351,7 @@ export function photoToChart(image: RgbaImage, options: PhotoToChartOptions): { 
     ({ labels, distance } = assignNearest(labs, palette.map((p) => hexToLab(p.hex))));
   } else {
     const k = options.colours as number;
-    const km = kMeans(labs, k, { seed: options.seed });
-    const centres = interiorCentres(labs, km.labels, k, width, height, km.centres);
+    const centres = chooseColours(labs, k, { seeding: options.seeding, seed: options.seed });
     const centreLabs: Lab[] = [];
     for (let j = 0; j < k; j++) centreLabs.push({ L: centres[j * 3], a: centres[j * 3 + 1], b: centres[j * 3 + 2] });
     const first = assignNearest(labs, centreLabs);
