@@ -6,6 +6,7 @@ import { isPaletteKey, type ChartV1 } from "../chart/format";
 import { MAX_HEIGHT, MAX_PALETTE, MAX_WIDTH, type Chart, type Gauge, type PaletteColour } from "../chart/model";
 import { labToHex, linearToLab, SRGB_TO_LINEAR } from "./colour-space";
 import { chooseColours, type Seeding } from "./choose-colours";
+import { nearestByCiede2000 } from "./nearest-colour";
 import { PhotoError } from "./photo-error";
 import { resampleArea, type PixelBox } from "./resample";
 
@@ -255,27 +256,7 @@ function cellLabs(rgb: Float64Array, linear: boolean): Float64Array {
   return out;
 }
 
-/** Index of the nearest colour (CIEDE2000) for each cell, and its difference. */
-function assignNearest(labs: Float64Array, targets: Lab[]): { labels: Uint8Array; distance: Float64Array } {
-  const n = labs.length / 3;
-  const labels = new Uint8Array(n);
-  const distance = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    const lab = { L: labs[i * 3], a: labs[i * 3 + 1], b: labs[i * 3 + 2] };
-    let best = 0;
-    let bestD = Infinity;
-    for (let j = 0; j < targets.length; j++) {
-      const d = getCiede2000(lab, targets[j]);
-      if (d < bestD) {
-        bestD = d;
-        best = j;
-      }
-    }
-    labels[i] = best;
-    distance[i] = bestD;
-  }
-  return { labels, distance };
-}
+const assignNearest = nearestByCiede2000;
 
 /** A stitch whose eight neighbours (those inside the chart) all differ from it takes their most common colour. */
 export function removeIsolatedStitches(labels: Uint8Array, width: number, height: number): { labels: Uint8Array; replaced: number } {
