@@ -84,9 +84,14 @@ export function densityPeaks(labs: Float64Array, k: number): Float64Array {
     delta[p] = Math.sqrt(best);
   }
   delta[order[0]] = Infinity;
-  // Peaks well apart from any denser colour, densest first; then, if too few, the rest by ρ·δ.
+  // Peaks well apart from any denser colour and from the peaks already taken, densest first; if too
+  // few, the same with a smaller separation step by step (a small yarn beside a big one sits on the
+  // big one's tail, so its δ is smaller), and at last the rest by ρ·δ.
   const chosen: number[] = [];
-  for (const p of order) if (chosen.length < k && delta[p] >= MIN_PEAK_SEPARATION) chosen.push(p);
+  const farFromChosen = (p: number, t: number) => chosen.every((c) => d2(bins.centre, p, bins.centre, c) >= t * t);
+  for (let t = MIN_PEAK_SEPARATION; t >= 1 && chosen.length < k; t -= 0.5) {
+    for (const p of order) if (chosen.length < k && delta[p] >= t && !chosen.includes(p) && farFromChosen(p, t)) chosen.push(p);
+  }
   if (chosen.length < k) {
     const rest = order.filter((p) => !chosen.includes(p)).sort((p, q) => rho[q] * delta[q] - rho[p] * delta[p] || p - q);
     for (const p of rest) if (chosen.length < k) chosen.push(p);

@@ -40,6 +40,8 @@ export interface PhotoToChartOptions {
   sampling?: {
     /** fraction of each stitch's box left out on every side, 0 to 0.45 (default DEFAULT_INSET) */
     inset?: number;
+    /** the same, for the sample the colours are chosen from (default DEFAULT_CHOOSE_INSET) */
+    chooseInset?: number;
     /** average in linear light (default true) or on sRGB values */
     linear?: boolean;
   };
@@ -81,6 +83,8 @@ export interface PhotoReport {
 
 /** Fraction of each stitch's box left out on every side when sampling (see README: accuracy). */
 export const DEFAULT_INSET = 0.25;
+/** Inset of the sample the colours are chosen from: wider, so noise averages out and yarns stay apart. */
+export const DEFAULT_CHOOSE_INSET = 0.2;
 export const MIN_COLOURS = 2;
 export const MAX_COLOURS = MAX_PALETTE;
 
@@ -319,6 +323,8 @@ export function photoToChart(image: RgbaImage, options: PhotoToChartOptions): { 
   const inset = options.sampling?.inset ?? DEFAULT_INSET;
   if (typeof inset !== "number" || !(inset >= 0 && inset <= 0.45)) throw new PhotoError("sampling.inset", `must be from 0 to 0.45 (got ${String(inset)})`);
   const linear = options.sampling?.linear ?? true;
+  const ci = options.sampling?.chooseInset;
+  if (ci !== undefined && (typeof ci !== "number" || !(ci >= 0 && ci <= 0.45))) throw new PhotoError("sampling.chooseInset", `must be from 0 to 0.45 (got ${String(ci)})`);
 
   const rgb = resampleArea(image, crop, width, height, { inset, linear });
   const labs = cellLabs(rgb, linear);
@@ -332,7 +338,10 @@ export function photoToChart(image: RgbaImage, options: PhotoToChartOptions): { 
     ({ labels, distance } = assignNearest(labs, palette.map((p) => hexToLab(p.hex))));
   } else {
     const k = options.colours as number;
-    const centres = chooseColours(labs, k, { seeding: options.seeding, seed: options.seed });
+    // Colours are chosen from a wider sample of each stitch than the one used to map it (see README).
+    const chooseInset = options.sampling?.chooseInset ?? DEFAULT_CHOOSE_INSET;
+    const chooseLabs = chooseInset === inset ? labs : cellLabs(resampleArea(image, crop, width, height, { inset: chooseInset, linear }), linear);
+    const centres = chooseColours(chooseLabs, k, { seeding: options.seeding, seed: options.seed });
     const centreLabs: Lab[] = [];
     for (let j = 0; j < k; j++) centreLabs.push({ L: centres[j * 3], a: centres[j * 3 + 1], b: centres[j * 3 + 2] });
     const first = assignNearest(labs, centreLabs);
