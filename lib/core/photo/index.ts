@@ -5,7 +5,8 @@ import { getCiede2000, hexToLab, type Lab } from "../colourwork/ciede2000";
 import { isPaletteKey, type ChartV1 } from "../chart/format";
 import { MAX_HEIGHT, MAX_PALETTE, MAX_WIDTH, type Chart, type Gauge, type PaletteColour } from "../chart/model";
 import { labToHex, linearToLab, SRGB_TO_LINEAR } from "./colour-space";
-import { kMeans } from "./kmeans";
+import { chooseColours, type Seeding } from "./choose-colours";
+import { nearestByCiede2000 } from "./nearest-colour";
 import { PhotoError } from "./photo-error";
 import { resampleArea, type PixelBox } from "./resample";
 
@@ -39,10 +40,14 @@ export interface PhotoToChartOptions {
   sampling?: {
     /** fraction of each stitch's box left out on every side, 0 to 0.45 (default DEFAULT_INSET) */
     inset?: number;
+    /** the same, for the sample the colours are chosen from (default DEFAULT_CHOOSE_INSET) */
+    chooseInset?: number;
     /** average in linear light (default true) or on sRGB values */
     linear?: boolean;
   };
-  /** PRNG seed for choosing colours (default fixed) */
+  /** how colours are seeded before k-means (default density peaks; see README) */
+  seeding?: Seeding;
+  /** PRNG seed for k-means++ seeding (default fixed) */
   seed?: number;
 }
 
@@ -77,7 +82,9 @@ export interface PhotoReport {
 }
 
 /** Fraction of each stitch's box left out on every side when sampling (see README: accuracy). */
-export const DEFAULT_INSET = 0.15;
+export const DEFAULT_INSET = 0.25;
+/** Inset of the sample the colours are chosen from: wider, so noise averages out and yarns stay apart. */
+export const DEFAULT_CHOOSE_INSET = 0.2;
 export const MIN_COLOURS = 2;
 export const MAX_COLOURS = MAX_PALETTE;
 
@@ -253,56 +260,7 @@ function cellLabs(rgb: Float64Array, linear: boolean): Float64Array {
   return out;
 }
 
-/** Index of the nearest colour (CIEDE2000) for each cell, and its difference. */
-function assignNearest(labs: Float64Array, targets: Lab[]): { labels: Uint8Array; distance: Float64Array } {
-  const n = labs.length / 3;
-  const labels = new Uint8Array(n);
-  const distance = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    const lab = { L: labs[i * 3], a: labs[i * 3 + 1], b: labs[i * 3 + 2] };
-    let best = 0;
-    let bestD = Infinity;
-    for (let j = 0; j < targets.length; j++) {
-      const d = getCiede2000(lab, targets[j]);
-      if (d < bestD) {
-        bestD = d;
-        best = j;
-      }
-    }
-    labels[i] = best;
-    distance[i] = bestD;
-  }
-  return { labels, distance };
-}
-
-/** Centres recomputed from the cells whose four neighbours share their label (unmixed by blur), where a cluster has enough of them. */
-function interiorCentres(labs: Float64Array, labels: Int32Array, k: number, width: number, height: number, centres: Float64Array): Float64Array {
-  const sums = new Float64Array(k * 3);
-  const count = new Float64Array(k);
-  const total = new Float64Array(k);
-  for (let r = 0; r < height; r++) {
-    for (let c = 0; c < width; c++) {
-      const i = r * width + c;
-      const l = labels[i];
-      total[l]++;
-      if (c === 0 || c === width - 1 || r === 0 || r === height - 1) continue;
-      if (labels[i - 1] !== l || labels[i + 1] !== l || labels[i - width] !== l || labels[i + width] !== l) continue;
-      sums[l * 3] += labs[i * 3];
-      sums[l * 3 + 1] += labs[i * 3 + 1];
-      sums[l * 3 + 2] += labs[i * 3 + 2];
-      count[l]++;
-    }
-  }
-  const out = centres.slice();
-  for (let j = 0; j < k; j++) {
-    if (count[j] >= 3 && count[j] >= 0.05 * total[j]) {
-      out[j * 3] = sums[j * 3] / count[j];
-      out[j * 3 + 1] = sums[j * 3 + 1] / count[j];
-      out[j * 3 + 2] = sums[j * 3 + 2] / count[j];
-    }
-  }
-  return out;
-}
+const assignNearest = nearestByCiede2000;
 
 /** A stitch whose eight neighbours (those inside the chart) all differ from it takes their most common colour. */
 export function removeIsolatedStitches(labels: Uint8Array, width: number, height: number): { labels: Uint8Array; replaced: number } {
@@ -365,6 +323,8 @@ export function photoToChart(image: RgbaImage, options: PhotoToChartOptions): { 
   const inset = options.sampling?.inset ?? DEFAULT_INSET;
   if (typeof inset !== "number" || !(inset >= 0 && inset <= 0.45)) throw new PhotoError("sampling.inset", `must be from 0 to 0.45 (got ${String(inset)})`);
   const linear = options.sampling?.linear ?? true;
+  const ci = options.sampling?.chooseInset;
+  if (ci !== undefined && (typeof ci !== "number" || !(ci >= 0 && ci <= 0.45))) throw new PhotoError("sampling.chooseInset", `must be from 0 to 0.45 (got ${String(ci)})`);
 
   const rgb = resampleArea(image, crop, width, height, { inset, linear });
   const labs = cellLabs(rgb, linear);
@@ -378,8 +338,10 @@ export function photoToChart(image: RgbaImage, options: PhotoToChartOptions): { 
     ({ labels, distance } = assignNearest(labs, palette.map((p) => hexToLab(p.hex))));
   } else {
     const k = options.colours as number;
-    const km = kMeans(labs, k, { seed: options.seed });
-    const centres = interiorCentres(labs, km.labels, k, width, height, km.centres);
+    // Colours are chosen from a wider sample of each stitch than the one used to map it (see README).
+    const chooseInset = options.sampling?.chooseInset ?? DEFAULT_CHOOSE_INSET;
+    const chooseLabs = chooseInset === inset ? labs : cellLabs(resampleArea(image, crop, width, height, { inset: chooseInset, linear }), linear);
+    const centres = chooseColours(chooseLabs, k, { seeding: options.seeding, seed: options.seed });
     const centreLabs: Lab[] = [];
     for (let j = 0; j < k; j++) centreLabs.push({ L: centres[j * 3], a: centres[j * 3 + 1], b: centres[j * 3 + 2] });
     const first = assignNearest(labs, centreLabs);

@@ -23,6 +23,8 @@ export interface KMeansOptions {
   maxIterations?: number;
   /** weight per point (default 1 each) */
   weights?: Float64Array;
+  /** start from these centres (3 numbers each) instead of k-means++ seedings */
+  initial?: Float64Array;
 }
 
 export interface KMeansResult {
@@ -41,6 +43,7 @@ export function kMeans(points: Float64Array, k: number, options: KMeansOptions =
   const restarts = options.restarts ?? 6;
   const maxIterations = options.maxIterations ?? 40;
   const weights = options.weights ?? new Float64Array(n).fill(1);
+  if (options.initial) return lloyd(points, weights, options.initial.slice(), maxIterations);
   let best: KMeansResult | null = null;
   for (let attempt = 0; attempt < restarts; attempt++) {
     const centres = seedPlusPlus(points, weights, k, random);

@@ -39,8 +39,9 @@ function axisWeights(origin: number, span: number, cells: number, inset: number)
   const weights: number[] = [];
   for (let i = 0; i < cells; i++) {
     start[i] = pixels.length;
-    const a = origin + (i + inset) * step;
-    const b = origin + (i + 1 - inset) * step;
+    // Clamped to the box: (i + 1) × step can overshoot origin + span by a rounding error.
+    const a = Math.max(origin, origin + (i + inset) * step);
+    const b = Math.min(origin + span, origin + (i + 1 - inset) * step);
     const first = Math.floor(a);
     const last = Math.ceil(b) - 1;
     for (let p = first; p <= Math.max(first, last); p++) {
