@@ -1,5 +1,6 @@
 // Command-line entry to the pure core: `npm run --silent core -- <verb> <file.json | ->`.
-// Each verb lives in scripts/core-verbs/<verb>.ts and exports `run(input: unknown): unknown`.
+// Each verb lives in scripts/core-verbs/<verb>.ts and exports `run(input: unknown, context): unknown`
+// (or a promise of it); context.file is the input file's path ("-" for stdin).
 // Output is JSON on stdout; any input error goes to stderr with exit code 2.
 import { readFileSync, readdirSync } from "node:fs";
 import path from "node:path";
@@ -40,11 +41,11 @@ async function main() {
     fail(`${file}: not valid JSON (${(e as Error).message})`);
   }
   const mod = (await import(pathToFileURL(path.join(verbsDir, `${verb}.ts`)).href)) as {
-    run: (input: unknown) => unknown;
+    run: (input: unknown, context: { file: string }) => unknown;
   };
   let out: unknown;
   try {
-    out = mod.run(input);
+    out = await mod.run(input, { file });
   } catch (e) {
     fail((e as Error).message);
   }

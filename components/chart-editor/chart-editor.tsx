@@ -30,8 +30,10 @@ import {
   stampChart,
   tileRepeat,
   undo,
+  parseChart,
   type Anchor,
   type Chart,
+  type ChartV1,
   type Point,
   type Rect,
 } from "@/lib/core/chart";
@@ -56,6 +58,7 @@ import {
   type StoredEntry,
 } from "./editor-model";
 import { LivePrice, type LivePricing } from "./live-price";
+import { PhotoImport, type ImportTarget, type PhotoChoice } from "@/components/photo-import/photo-import";
 import { PlanPanel } from "./plan-panel";
 
 type Tool = "paint" | "fill" | "line" | "rect" | "select" | "eyedropper" | "motif" | "lettering" | "paste" | "pan";
@@ -101,6 +104,8 @@ export interface ChartEditorProps {
   sizing?: SizingResult | null;
   /** said beside the price when the sizing is a stand-in */
   sizingNote?: string | null;
+  /** the commission's photos, offered by "Import from a photo" */
+  photos?: PhotoChoice[];
 }
 
 /** The sizing's chart area an entry is drawn for, when its size still matches. */
@@ -270,6 +275,35 @@ export function ChartEditor(props: ChartEditorProps) {
     setEntries((all) => all.map((e, i) => (i === active && canRedo(e.history) ? { ...e, history: redo(e.history) } : e)));
     setRevision((r) => r + 1);
   }, [active]);
+
+  // ---- import from a photo: the accepted chart replaces one entry's as one undo step (autosaved) ----
+  const importTargets = useMemo(
+    (): ImportTarget[] =>
+      entries.map((e, i) => {
+        const c = e.history.present;
+        const found = props.sizing ? matchArea({ chartAreas: props.sizing.charts.map((a) => a.area) }, e.area) : null;
+        const garmentArea = found ? (props.sizing?.charts.find((a) => a.area === found.area) ?? null) : null;
+        return { index: i, label: e.label, area: garmentArea, width: c.width, height: c.height, gauge: c.gauge };
+      }),
+    [entries, props.sizing],
+  );
+  const acceptImport = useCallback(
+    (index: number, doc: ChartV1) => {
+      if (readOnly) return;
+      const chart = parseChart(doc);
+      setPreview(null);
+      setSelection(null);
+      setLetterBox(null);
+      setEntries((all) => all.map((e, i) => (i === index ? commitEdit(book.current, e, chart, []) : e)));
+      setActive(index);
+      setRevision((r) => r + 1);
+      setMessage({
+        tone: "success",
+        text: `The photo's chart (${chart.width} × ${chart.height}) replaced ${entries[index]?.label ?? "the chart"}; it is saved as a new version. Undo brings the previous chart back.`,
+      });
+    },
+    [readOnly, entries],
+  );
 
   // ---- saving ---------------------------------------------------------------------------
   const entriesRef = useRef(entries);
@@ -697,6 +731,17 @@ export function ChartEditor(props: ChartEditorProps) {
           <p className="text-sm text-bark">
             {present.width} stitches × {present.height} rows · {present.gauge.stitchesPer10cm} sts and {present.gauge.rowsPer10cm} rows per 10 cm
           </p>
+          <PhotoImport
+            targets={importTargets}
+            active={active}
+            yarns={props.yarns}
+            photos={props.photos ?? []}
+            currentHexes={present.palette.map((c) => c.hex)}
+            locked={readOnly}
+            inTheRound={props.inTheRound}
+            garment={props.livePricing && props.sizing ? { sizing: props.sizing, charts: priceCharts, pricing: props.livePricing } : null}
+            onAccept={acceptImport}
+          />
           <p role="status" aria-live="polite" data-testid="save-state" data-state={save.kind} className="ml-auto text-sm font-semibold">
             {saveLabel}
           </p>

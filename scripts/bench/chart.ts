@@ -24,6 +24,7 @@ import {
 } from "@/lib/core/chart/ops";
 import { rasterizeChart } from "@/lib/core/chart/raster";
 import { renderChartSvg, renderPreviewSvg } from "@/lib/core/chart/render-svg";
+import { benchPhoto } from "./photo";
 
 const RUNS = 50;
 const WARMUP = 5;
@@ -125,3 +126,5 @@ process.stdout.write(
     checksum: sink & 1,
   }) + "\n",
 );
+// Photo → chart: a 12-megapixel picture to a 60 × 80 chart (scripts/bench/photo.ts).
+benchPhoto();

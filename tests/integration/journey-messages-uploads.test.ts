@@ -65,6 +65,13 @@ describe("uploads", () => {
     // Another client of the same studio, and a signed-out visitor: 404.
     expect((await download(requestWith(b, `/api/uploads/${up.id}`), ctx(up.id))).status).toBe(404);
     expect((await download(requestWith(null, `/api/uploads/${up.id}`), ctx(up.id))).status).toBe(404);
+    // ?bytes=1 (the design page's photo import reads pixels from the app's own origin): the same gate.
+    const bytes = await download(requestWith(owner, `/api/uploads/${up.id}?bytes=1`), ctx(up.id));
+    expect(bytes.status).toBe(200);
+    expect(bytes.headers.get("content-type")).toBe("image/jpeg");
+    expect(Buffer.from(await bytes.arrayBuffer()).equals(stored)).toBe(true);
+    expect((await download(requestWith(b, `/api/uploads/${up.id}?bytes=1`), ctx(up.id))).status).toBe(404);
+    expect((await download(requestWith(null, `/api/uploads/${up.id}?bytes=1`), ctx(up.id))).status).toBe(404);
   });
 
   test("a PDF renamed .jpg, an empty file and an oversized one are refused with the reason", async () => {

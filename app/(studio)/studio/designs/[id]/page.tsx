@@ -8,6 +8,7 @@ import { can } from "@/lib/server/authz";
 import { getDesignWithHead, listStudioYarnColours } from "@/lib/server/designs";
 import { requireStudioMember } from "@/lib/server/page-guards";
 import { getCommissionFor } from "@/lib/server/queries/commissions";
+import { listCommissionUploads } from "@/lib/server/queries/uploads";
 import { policyFrom } from "@/lib/server/quotes";
 import { commissionSizing } from "@/lib/server/garment";
 import { loadStudioSettings } from "@/lib/server/settings";
@@ -26,6 +27,10 @@ export default async function DesignPage({ params }: { params: Promise<{ id: str
   // The live price is shown to studio members only (this page is members-only); prices are the commission's currency.
   const found0 = design.commissionId ? await getCommissionFor(actor, design.commissionId).catch(() => null) : null;
   const commission = found0 ? { ...found0, sizing: await loadSizing(found0.id) } : null;
+  // The commission's photos (reference photos and message attachments, not progress photos) for "Import from a photo".
+  const photos = commission
+    ? (await listCommissionUploads(actor, commission.id)).filter((u) => u.kind !== "progress").map((u) => ({ id: u.id, kind: u.kind, width: u.width, height: u.height }))
+    : [];
   const livePricing = commission
     ? { policy: policyFrom(settings, commission.currency), designFeeMinor: settings.designFeeMinor, floatLimitStitches: settings.floatLimitStitches, floatLimitCm: settings.floatLimitCm, carryLimitCm: settings.carryLimitCm }
     : undefined;
@@ -68,6 +73,7 @@ export default async function DesignPage({ params }: { params: Promise<{ id: str
         livePricing={livePricing}
         sizing={sized?.ok ? sized.sizing : null}
         sizingNote={sized ? (sized.ok ? sized.note : sized.note) : null}
+        photos={photos}
         planDefaults={{ carryLimitCm: settings.carryLimitCm, floatLimitStitches: settings.floatLimitStitches, floatLimitCm: settings.floatLimitCm }}
       />
     </>
