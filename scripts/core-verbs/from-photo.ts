@@ -1,7 +1,8 @@
 // from-photo: { "image": "<path to a PNG or JPEG>", "width", "height", "gauge": { "stitchesPer10cm",
 // "rowsPer10cm" }, "palette": [ { "key", "name", "hex" } ] | "colours": n, "crop"?: { "x", "y",
 // "width", "height" } (pixels), "cleanup"?: { "removeIsolated"?: boolean } } → a chart v1. A relative
-// image path is looked up beside the input file first, then from the current directory.
+// image path is looked up beside the input file first, then from the directory `npm run` was started
+// in (INIT_CWD; npm moves to the project's folder), then from the current directory.
 import { existsSync, readFileSync } from "node:fs";
 import path from "node:path";
 import { z } from "zod";
@@ -24,7 +25,11 @@ const requestSchema = z.object({
 
 function resolveImage(image: string, file: string | undefined): string {
   if (path.isAbsolute(image)) return image;
-  const candidates = [...(file && file !== "-" ? [path.resolve(path.dirname(file), image)] : []), path.resolve(image)];
+  const candidates = [
+    ...(file && file !== "-" ? [path.resolve(path.dirname(file), image)] : []),
+    ...(process.env.INIT_CWD ? [path.resolve(process.env.INIT_CWD, image)] : []),
+    path.resolve(image),
+  ];
   return candidates.find((p) => existsSync(p)) ?? candidates[0];
 }
 
