@@ -1,13 +1,17 @@
 // from-photo: { "image": "<path to a PNG or JPEG>", "width", "height", "gauge": { "stitchesPer10cm",
 // "rowsPer10cm" }, "palette": [ { "key", "name", "hex" } ] | "colours": n, "crop"?: { "x", "y",
 // "width", "height" } (pixels), "cleanup"?: { "removeIsolated"?: boolean } } → a chart v1. A relative
-// image path is looked up beside the input file first, then from the current directory.
-import { existsSync, readFileSync } from "node:fs";
+// image path is looked up beside the input file first, then from the directory `npm run` was started
+// in (INIT_CWD; npm moves to the project's folder), then from the current directory.
+import { existsSync, readFileSync, statSync } from "node:fs";
 import path from "node:path";
 import { z } from "zod";
 import { parseWithMessages } from "@/lib/core/chart/zod-messages";
 import { photoToChart } from "@/lib/core/photo";
 import { decodePhoto } from "@/lib/server/photo-decode";
+
+/** Larger files are refused before reading (a 50-megapixel JPEG or PNG is far smaller). */
+const MAX_FILE_BYTES = 200_000_000;
 
 const colour = z.object({ key: z.string(), name: z.string(), hex: z.string() });
 
@@ -24,7 +28,11 @@ const requestSchema = z.object({
 
 function resolveImage(image: string, file: string | undefined): string {
   if (path.isAbsolute(image)) return image;
-  const candidates = [...(file && file !== "-" ? [path.resolve(path.dirname(file), image)] : []), path.resolve(image)];
+  const candidates = [
+    ...(file && file !== "-" ? [path.resolve(path.dirname(file), image)] : []),
+    ...(process.env.INIT_CWD ? [path.resolve(process.env.INIT_CWD, image)] : []),
+    path.resolve(image),
+  ];
   return candidates.find((p) => existsSync(p)) ?? candidates[0];
 }
 
@@ -33,8 +41,13 @@ export async function run(input: unknown, context: { file?: string } = {}): Prom
   const where = resolveImage(request.image, context.file);
   let bytes: Buffer;
   try {
+    const size = statSync(where).size;
+    if (size > MAX_FILE_BYTES) {
+      throw new Error(`from-photo input: image ${JSON.stringify(request.image)} is ${(size / 1e6).toFixed(0)} MB; at most ${MAX_FILE_BYTES / 1e6} MB are read`);
+    }
     bytes = readFileSync(where);
   } catch (e) {
+    if ((e as Error).message.startsWith("from-photo input:")) throw e;
     throw new Error(`from-photo input: image ${JSON.stringify(request.image)} cannot be read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
   }
   let pixels;

@@ -42,6 +42,8 @@ export interface PhotoToChartOptions {
     inset?: number;
     /** the same, for the sample the colours are chosen from (default DEFAULT_CHOOSE_INSET) */
     chooseInset?: number;
+    /** with a palette: map to the palette colours as this photo shows them (default true; README) */
+    adapt?: boolean;
     /** average in linear light (default true) or on sRGB values */
     linear?: boolean;
   };
@@ -262,6 +264,31 @@ function cellLabs(rgb: Float64Array, linear: boolean): Float64Array {
 
 const assignNearest = nearestByCiede2000;
 
+const ADAPT_DEFAULT = true;
+
+/** Per colour, the mean Lab of the stitches mapped to it that lie within their median difference; the given colour where fewer than 3. */
+function observedColours(labs: Float64Array, labels: Uint8Array, distance: Float64Array, given: Lab[]): Lab[] {
+  return given.map((lab, j) => {
+    const ds: number[] = [];
+    for (let i = 0; i < labels.length; i++) if (labels[i] === j) ds.push(distance[i]);
+    if (ds.length < 3) return lab;
+    ds.sort((a, b) => a - b);
+    const limit = ds[Math.floor((ds.length - 1) / 2)];
+    let L = 0;
+    let a = 0;
+    let b = 0;
+    let n = 0;
+    for (let i = 0; i < labels.length; i++) {
+      if (labels[i] !== j || distance[i] > limit) continue;
+      L += labs[i * 3];
+      a += labs[i * 3 + 1];
+      b += labs[i * 3 + 2];
+      n++;
+    }
+    return { L: L / n, a: a / n, b: b / n };
+  });
+}
+
 /** A stitch whose eight neighbours (those inside the chart) all differ from it takes their most common colour. */
 export function removeIsolatedStitches(labels: Uint8Array, width: number, height: number): { labels: Uint8Array; replaced: number } {
   const out = labels.slice();
@@ -335,7 +362,16 @@ export function photoToChart(image: RgbaImage, options: PhotoToChartOptions): { 
   let distance: Float64Array;
   if (hasPalette) {
     palette = (options.palette as PaletteColour[]).map((p) => ({ key: p.key, name: p.name, hex: p.hex }));
-    ({ labels, distance } = assignNearest(labs, palette.map((p) => hexToLab(p.hex))));
+    const given = palette.map((p) => hexToLab(p.hex));
+    ({ labels, distance } = assignNearest(labs, given));
+    if (options.sampling?.adapt ?? ADAPT_DEFAULT) {
+      // The palette as this photo shows it (light, blur from neighbours, compression shift every yarn a
+      // little): each colour moved to the mean of the purer half of its stitches, then mapped again.
+      const seen = observedColours(labs, labels, distance, given);
+      labels = assignNearest(labs, seen).labels;
+      distance = new Float64Array(labels.length);
+      for (let i = 0; i < labels.length; i++) distance[i] = getCiede2000({ L: labs[i * 3], a: labs[i * 3 + 1], b: labs[i * 3 + 2] }, given[labels[i]]);
+    }
   } else {
     const k = options.colours as number;
     // Colours are chosen from a wider sample of each stitch than the one used to map it (see README).

@@ -37,6 +37,24 @@ CASES.push(...HARD);
 
 const results: { seed: number; palette: number; colours: number }[] = [];
 
+type Image = ReturnType<typeof chartToPixels>;
+/** Dark grey lines one pixel wide between the stitches, as on a printed chart. */
+function gridLines(img: Image, cellWidth: number, cellHeight: number): Image {
+  for (let y = 0; y < img.height; y++) {
+    for (let x = 0; x < img.width; x++) if (x % cellWidth === 0 || y % cellHeight === 0) img.data.set([90, 90, 90, 255], (y * img.width + x) * 4);
+  }
+  return img;
+}
+/** A warm colour cast, as under indoor light: more red, less green and blue. */
+function warmCast(img: Image): Image {
+  for (let i = 0; i < img.data.length; i += 4) {
+    img.data[i] = Math.min(255, img.data[i] * 1.06 + 6);
+    img.data[i + 1] = img.data[i + 1] * 0.95;
+    img.data[i + 2] = img.data[i + 2] * 0.88;
+  }
+  return img;
+}
+
 describe("photographed charts come back", () => {
   test.each(CASES)("case $seed: $colours colours, σ $sigma px, noise $noise, JPEG $quality, scale $scale", async (c) => {
     const synth = makeCase(c.seed, c.colours, c.size);
@@ -49,6 +67,23 @@ describe("photographed charts come back", () => {
     expect(withColours).toBeGreaterThanOrEqual(0.95);
   });
 
+  test.each([
+    { seed: 7001, how: "grid lines", change: gridLines },
+    { seed: 7004, how: "grid lines", change: gridLines },
+    { seed: 7012, how: "a warm cast", change: (img: Image) => warmCast(img) },
+    { seed: 7013, how: "a warm cast", change: (img: Image) => warmCast(img) },
+  ])("case $seed with $how: the palette as the photo shows it", async ({ seed, change }) => {
+    const synth = makeCase(seed, 2 + (seed % 5));
+    const drawn = change(chartToPixels(synth.chart, synth.cellWidth, synth.cellHeight), synth.cellWidth, synth.cellHeight);
+    const photo = await degrade(drawn, { sigma: 1.5, noise: 10, quality: 75, seed });
+    const base = { width: synth.chart.width, height: synth.chart.height, gauge: synth.chart.gauge, palette: synth.chart.palette };
+    const adapted = agreement(synth.chart, photoToChart(photo, base).chart);
+    const raw = agreement(synth.chart, photoToChart(photo, { ...base, sampling: { adapt: false } }).chart);
+    results.push({ seed, palette: adapted, colours: agreementMatched(synth.chart, photoToChart(photo, { ...base, palette: undefined, colours: synth.chart.palette.length }).chart) });
+    expect(adapted).toBeGreaterThanOrEqual(0.97);
+    expect(adapted).toBeGreaterThanOrEqual(raw);
+  });
+
   test("summary", () => {
     const mean = (k: "palette" | "colours") => results.reduce((s, r) => s + r[k], 0) / results.length;
     const min = (k: "palette" | "colours") => Math.min(...results.map((r) => r[k]));
@@ -57,6 +92,6 @@ describe("photographed charts come back", () => {
       `photo accuracy over ${results.length} photographed charts: with the palette mean ${pct(mean("palette"))} %, worst ${pct(min("palette"))} %; ` +
         `with the number of colours mean ${pct(mean("colours"))} %, worst ${pct(min("colours"))} %`,
     );
-    expect(results).toHaveLength(CASES.length);
+    expect(results).toHaveLength(CASES.length + 4);
   });
 });
