@@ -36,6 +36,10 @@ export function policyFrom(settings: StudioSettings, currency: string): QuotePol
     taxRatePercent: settings.taxRatePercent,
     pricesIncludeTax: settings.pricesIncludeTax,
     depositPercent: settings.depositPercent,
+    // The standard category's rate is the studio's tax rate (taxRatePercent), so the two never disagree.
+    ...(settings.taxCategories.length
+      ? { taxCategories: settings.taxCategories.map((c) => (c.id === "standard" ? { id: c.id, label: c.label } : c)), taxDefaults: settings.taxDefaults }
+      : {}),
     rates: settings.rates,
   };
 }
@@ -140,12 +144,13 @@ async function draftFromBody(studioId: string, body: QuoteDraftBody): Promise<Qu
   const materials = body.materials.map((m, i) => {
     const y = byId.get(m.yarnId);
     if (!y) throw new AppError(422, "invalid_input", "Choose a yarn from the studio's list.", { [`materials.${i}.yarnId`]: ["Choose a yarn from the studio's list."] });
-    return { yarnId: y.id, label: `${y.name}, ${y.colourName} (skeins)`, skeins: m.skeins, unitPriceMinor: y.priceMinor };
+    return { yarnId: y.id, label: `${y.name}, ${y.colourName} (skeins)`, skeins: m.skeins, unitPriceMinor: y.priceMinor, taxCategory: m.taxCategory ?? null };
   });
   return {
     pieces: body.pieces,
     materials,
     extras: body.extras,
+    labourTaxCategory: body.labourTaxCategory ?? null,
     designFeeMinor: body.designFeeMinor,
     shippingMinor: body.shippingMinor,
     discountMinor: body.discountMinor,
@@ -159,7 +164,8 @@ function compose(draft: QuoteDraft, policy: QuotePolicy) {
   try {
     return composeQuote(draft, policy);
   } catch (err) {
-    if (err instanceof PricingInputError || err instanceof RangeError) throw new AppError(422, "invalid_quote", err.message);
+    if (err instanceof PricingInputError) throw new AppError(422, "invalid_quote", err.message, err.field ? { [err.field]: [err.message] } : undefined);
+    if (err instanceof RangeError) throw new AppError(422, "invalid_quote", err.message);
     throw err;
   }
 }
