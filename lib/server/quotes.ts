@@ -9,6 +9,7 @@ import { composeQuote, type QuoteDraft, type QuotePolicy } from "@/lib/core/pric
 import { formatMoney } from "@/lib/core/pricing/format-money";
 import type { Quote } from "@/lib/core/pricing/build-quote";
 import { PricingInputError } from "@/lib/core/pricing/pricing-error";
+import { formatRatePpm, taxByRateOf } from "@/lib/core/pricing/tax";
 import { env } from "@/lib/env";
 import type { QuoteDraftBody } from "@/lib/schemas/quotes";
 import type { StudioSettings } from "@/lib/schemas/settings";
@@ -57,7 +58,7 @@ export const storedInputOf = (v: Pick<QuoteVersion, "input">) => v.input as unkn
 
 export function quoteTotalsRows(q: Quote) {
   const m = (n: number) => formatMoney(n, q.currency);
-  const rate = `${q.taxRatePpm / 10_000} %`;
+  const rate = (q.taxByRate?.length ?? 0) > 1 ? "all rates" : `${q.taxRatePpm / 10_000} %`;
   return [
     ...(q.pricesIncludeTax
       ? [
@@ -237,6 +238,16 @@ export async function renderQuotePdf(v: QuoteVersion): Promise<Buffer> {
       validUntil: v.validUntil ?? "",
       lines: q.lines.map((l) => ({ label: l.label, amount: formatMoney(l.amountMinor, q.currency) })),
       totals: quoteTotalsRows(q),
+      // Totals per rate whenever there is more than one (they add up to the totals above).
+      taxByRate:
+        taxByRateOf(q).length > 1
+          ? taxByRateOf(q).map((r) => ({
+              label: r.category === "zero" || r.category === "exempt" ? r.label : `${r.label} ${formatRatePpm(r.ratePpm)}`,
+              net: formatMoney(r.netMinor, q.currency),
+              tax: formatMoney(r.taxMinor, q.currency),
+              gross: formatMoney(r.grossMinor, q.currency),
+            }))
+          : undefined,
       taxNote: taxNote(q),
       message: v.messageToClient,
       portalUrl: portalUrl(v.commissionId),

@@ -165,7 +165,7 @@ export function computeTaxByRate(
  * same fraction of that category's tax, rounded once (half away from zero). A negative part (a
  * credit) gives the negated split of its magnitude, so a refund of the whole reverses every figure.
  */
-export function splitByRate(partMinor: number, byRate: TaxRateTotal[]): TaxRateShare[] {
+export function splitByRate(partMinor: number, byRate: readonly Pick<TaxRateTotal, "category" | "label" | "ratePpm" | "grossMinor" | "taxMinor">[]): TaxRateShare[] {
   const part = BigInt(partMinor);
   const magnitude = part < 0n ? -part : part;
   const sign = part < 0n ? -1n : 1n;
@@ -189,3 +189,34 @@ export function splitByRate(partMinor: number, byRate: TaxRateTotal[]): TaxRateS
 
 /** "20 %", "17.5 %", "0 %" */
 export const formatRatePpm = (ppm: number) => `${ppm / 10_000} %`;
+
+/**
+ * Totals per rate of a stored quote. Quotes made before tax categories have none: they had one rate
+ * on the whole, so their one row is exactly their totals.
+ */
+export function taxByRateOf(q: { taxByRate?: TaxRateTotal[]; subtotalMinor: number; taxMinor: number; totalMinor: number; taxRatePpm: number; pricesIncludeTax: boolean; lines: { amountMinor: number; kind: string }[] }): TaxRateTotal[] {
+  if (q.taxByRate) return q.taxByRate;
+  const discount = -q.lines.filter((l) => l.kind === "discount").reduce((s, l) => s + l.amountMinor, 0);
+  return [
+    {
+      category: "standard",
+      label: "Tax",
+      ratePpm: q.taxRatePpm,
+      linesMinor: q.subtotalMinor + discount,
+      discountMinor: discount,
+      netMinor: q.totalMinor - q.taxMinor,
+      taxMinor: q.taxMinor,
+      grossMinor: q.totalMinor,
+    },
+  ];
+}
+
+/** What is left of each rate after parts of it were paid (e.g. the balance after the deposit). */
+export function remainderByRate(whole: readonly TaxRateTotal[], parts: readonly TaxRateShare[]): TaxRateShare[] {
+  return whole.map((r) => {
+    const p = parts.find((x) => x.category === r.category);
+    const gross = r.grossMinor - (p?.grossMinor ?? 0);
+    const tax = r.taxMinor - (p?.taxMinor ?? 0);
+    return { category: r.category, label: r.label, ratePpm: r.ratePpm, grossMinor: gross, taxMinor: tax, netMinor: gross - tax };
+  });
+}
