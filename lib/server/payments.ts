@@ -183,7 +183,8 @@ export interface DocumentContent {
   title: string;
   commissionNumber: number;
   quoteVersion: number;
-  lines: { label: string; amountMinor: number; quantity?: string; unitPriceMinor?: number; taxCategory?: string; ratePpm?: number; rateLabel?: string }[];
+  /** per: the unit the unit price is for ("h" for labour) */
+  lines: { label: string; amountMinor: number; quantity?: string; unitPriceMinor?: number; per?: string; taxCategory?: string; ratePpm?: number; rateLabel?: string }[];
   /** the seller as at issue (VAT invoices: name, address, VAT number) */
   seller?: { name: string; legalName: string; address: string; taxNumber: string };
   /** date of supply / tax point: for a receipt the day the payment arrived; for the balance invoice the day it is issued (the piece is ready) */
@@ -268,7 +269,7 @@ export async function issueDocument(
     quoteVersion: v.number,
     lines: q.lines.map((l) => {
       const r = l.taxCategory ? rateOf.get(l.taxCategory) : byRate.length === 1 && l.kind !== "discount" ? byRate[0] : undefined;
-      return { label: l.label, amountMinor: l.amountMinor, quantity: l.quantity, unitPriceMinor: l.unitPriceMinor, taxCategory: l.taxCategory, ratePpm: r?.ratePpm, rateLabel: r?.label };
+      return { label: l.label, amountMinor: l.amountMinor, quantity: l.quantity, unitPriceMinor: l.unitPriceMinor, per: l.kind === "labour" ? "h" : undefined, taxCategory: l.taxCategory, ratePpm: r?.ratePpm, rateLabel: r?.label };
     }),
     seller,
     supplyDate: new Date().toISOString().slice(0, 10),
@@ -346,7 +347,7 @@ export async function renderDocumentPdf(doc: Invoice): Promise<Buffer> {
         ...(k.taxByRate
           ? {
               quantity: l.quantity ?? (l.amountMinor >= 0 ? "1" : ""),
-              unitPrice: money(l.unitPriceMinor ?? l.amountMinor, cur),
+              unitPrice: `${money(l.unitPriceMinor ?? l.amountMinor, cur)}${l.per ? ` / ${l.per}` : ""}`,
               rate: l.ratePpm !== undefined ? (l.taxCategory === "zero" || l.taxCategory === "exempt" ? (l.rateLabel ?? "") : formatRatePpm(l.ratePpm)) : "spread over the rates",
             }
           : {}),
