@@ -12,12 +12,15 @@ import type { Quote } from "@/lib/core/pricing/build-quote";
 import { getMinorDigits } from "@/lib/core/pricing/currency";
 import { formatMoney } from "@/lib/core/pricing/format-money";
 import { formatRatePpm, splitByRate, taxByRateOf, type TaxRateShare } from "@/lib/core/pricing/tax";
+import { env } from "@/lib/env";
+import { creditNoteMessage } from "@/templates/email/money";
 import { CreditNoteDocument } from "@/templates/pdf/credit-note";
+import { enqueueMail } from "./outbox";
 import type { Actor } from "./authz";
 import { notFound, nullIfNotFound } from "./errors";
 import { allocateDocumentNumber, type DocumentContent } from "./payments";
 import { renderPdf } from "./pdf";
-import { getCommissionFor } from "./queries/commissions";
+import { getCommissionFor, getCommissionMailParties } from "./queries/commissions";
 
 export interface CreditNoteContent {
   number: string;
@@ -88,6 +91,21 @@ export async function issueCreditNote(tx: Tx, refundId: string): Promise<CreditN
       totalMinor: -r.amountMinor,
     })
     .returning();
+  // The PDF is rendered by the outbox worker when it sends, never inside this transaction.
+  const parties = await getCommissionMailParties(tx, c.id);
+  const mail = creditNoteMessage({
+    number: content.number,
+    clientName: c.clientName,
+    studioName: parties.studioName,
+    title: c.title,
+    amount: formatMoney(r.amountMinor, p.currency),
+    url: `${env.BETTER_AUTH_URL}/portal/commissions/${c.id}`,
+    accentHex: parties.brandHex,
+  });
+  await enqueueMail(
+    { to: parties.clientEmail, ...mail, studioId: c.studioId, dedupeKey: `credit-note-${row.id}`, attachments: [{ filename: `${content.number}.pdf`, contentType: "application/pdf", render: `credit-note:${row.id}` }] },
+    tx,
+  );
   return row;
 }
 

@@ -606,7 +606,7 @@ async function applyEvent(tx: Tx, event: Stripe.Event): Promise<Record<string, u
       }
       const { issueCreditNote } = await import("./credit-notes");
       for (const r of ch.refunds?.data ?? []) {
-        const [ins] = await tx.insert(refunds).values({ paymentId: p.id, providerRefundId: r.id, amountMinor: r.amount, reason: r.reason ?? "" }).onConflictDoNothing().returning({ id: refunds.id });
+        const [ins] = await tx.insert(refunds).values({ paymentId: p.id, providerRefundId: r.id, amountMinor: r.amount, reason: r.metadata?.reason ?? r.reason ?? "" }).onConflictDoNothing().returning({ id: refunds.id });
         // Only the path that recorded the refund issues its credit note: one per refund.
         if (ins) await issueCreditNote(tx, ins.id);
       }
@@ -681,7 +681,7 @@ export async function refundByPolicy(actor: Actor, commissionId: string, opts: {
     let r: Stripe.Refund;
     try {
       r = await stripe().refunds.create(
-        { payment_intent: p.paymentIntentId, amount, reason: "requested_by_customer", metadata: { paymentId: p.id } },
+        { payment_intent: p.paymentIntentId, amount, reason: "requested_by_customer", metadata: { paymentId: p.id, reason: (opts.reason ?? "cancellation policy").slice(0, 500) } },
         { idempotencyKey: `refund-${p.id}-${p.refundedMinor}-${amount}` },
       );
     } catch (err) {

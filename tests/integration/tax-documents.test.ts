@@ -18,7 +18,7 @@ import { acceptQuote, saveQuoteDraft, sendQuote } from "@/lib/server/quotes";
 import { updateStudioSettings } from "@/lib/server/settings";
 import { updateTaxSettings } from "@/lib/server/tax-settings";
 import type { PaymentsFake } from "@/scripts/fakes/payments";
-import { makeWorld, type World } from "./helpers";
+import { makeWorld, waitForMail, type World } from "./helpers";
 import { paymentsFakeForFile } from "./payments-fake";
 
 const payFake = paymentsFakeForFile();
@@ -171,6 +171,8 @@ describe("credit notes", { timeout: 90_000 }, () => {
     expect(content.byRate.reduce((s, r) => s + r.grossMinor, 0)).toBe(-p.refundedMinor);
     expect(content.byRate.every((r) => r.grossMinor <= 0 && r.taxMinor <= 0)).toBe(true);
     expect(content.corrects).toMatch(/^RCT-\d{4} of /);
+    expect(notes[0].content).toMatchObject({ reason: "changed their mind" });
+    await waitForMail(w.clientA.email, (m) => m.subject.startsWith("Credit note CRN-0001"));
     png("credit-note", await renderCreditNotePdf(notes[0]));
   });
 
