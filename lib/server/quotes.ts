@@ -77,7 +77,8 @@ export function quoteTotalsRows(q: Quote) {
 
 export function taxNote(q: Quote): string {
   if (q.taxRatePpm === 0) return "No tax is charged on this quote.";
-  return q.pricesIncludeTax ? "Prices include tax; the tax contained is shown above." : "Tax is added to the subtotal; it is worked once on the whole.";
+  const once = (q.taxByRate?.length ?? 0) > 1 ? "it is worked once per rate, on that rate's lines" : "it is worked once on the whole";
+  return q.pricesIncludeTax ? `Prices include tax; the tax contained is shown above (${once}).` : `Tax is added to the subtotal; ${once}.`;
 }
 
 // --- the builder ------------------------------------------------------------------------------
@@ -214,7 +215,7 @@ export async function saveQuoteDraft(actor: Actor, commissionId: string, body: Q
 async function studioDoc(studioId: string) {
   const [s] = await db.select().from(studios).where(eq(studios.id, studioId));
   if (!s) throw notFound("That studio");
-  return { row: s, doc: { name: s.name, address: s.address, contactEmail: s.contactEmail, taxNumber: s.taxNumber, brandHex: s.brandHex } };
+  return { row: s, doc: { name: s.name, legalName: s.legalName, address: s.address, contactEmail: s.contactEmail, taxNumber: s.taxNumber, brandHex: s.brandHex } };
 }
 
 export const portalUrl = (commissionId: string) => `${env.BETTER_AUTH_URL}/portal/commissions/${commissionId}`;

@@ -14,7 +14,7 @@ import { quoteDraftSchema, type QuoteDraftBody } from "@/lib/schemas/quotes";
 import { readStudioSettings } from "@/lib/schemas/settings";
 import { renderCreditNotePdf } from "@/lib/server/credit-notes";
 import { refundByPolicy, renderDocumentPdf, requestBalance, startCheckout, type DocumentContent } from "@/lib/server/payments";
-import { acceptQuote, saveQuoteDraft, sendQuote } from "@/lib/server/quotes";
+import { acceptQuote, renderQuotePdf, saveQuoteDraft, sendQuote } from "@/lib/server/quotes";
 import { updateStudioSettings } from "@/lib/server/settings";
 import { updateTaxSettings } from "@/lib/server/tax-settings";
 import type { PaymentsFake } from "@/scripts/fakes/payments";
@@ -148,6 +148,7 @@ describe("documents with totals per rate", { timeout: 90_000 }, () => {
     expect(k.lines.find((l) => l.label.includes("skeins"))).toMatchObject({ taxCategory: "standard", ratePpm: 200_000, quantity: "2", unitPriceMinor: 850 });
     expect(k.taxByRate!.reduce((s, r) => s + r.taxMinor, 0)).toBe(q.taxMinor);
     png("invoice", await renderDocumentPdf(inv));
+    png("quote", await renderQuotePdf(v));
   });
 });
 

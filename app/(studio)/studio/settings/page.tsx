@@ -44,7 +44,8 @@ function taxFormValues(t: Awaited<ReturnType<typeof getTaxSettings>>): Record<st
   const cat = (id: string) => t.categories.find((c) => c.id === id);
   return {
     standardLabel: cat("standard")?.label ?? "Standard rate",
-    standardRate: String(cat("standard")?.ratePercent ?? t.standardRatePercent),
+    // The studio's tax rate is the standard rate (the Prices form above edits it too).
+    standardRate: String(t.standardRatePercent),
     reducedLabel: cat("reduced")?.label ?? "",
     reducedRate: cat("reduced") ? String(cat("reduced")!.ratePercent) : "",
     zeroLabel: cat("zero")?.label ?? "",
