@@ -4,6 +4,7 @@ import { Notice } from "@/components/ui/notice";
 import { formatMoney } from "@/lib/core/pricing/format-money";
 import { labourLevelNote } from "@/lib/core/pricing/labour-level";
 import { asClient, type Actor } from "@/lib/server/authz";
+import { creditNoteLabel, listCreditNotesFor } from "@/lib/server/credit-notes";
 import { documentLabel, listCommissionPayments, listDocumentsFor } from "@/lib/server/payments";
 import { listQuotesFor, quoteOf, todayIso } from "@/lib/server/quotes";
 import { ActionForm } from "./action-form";
@@ -19,6 +20,7 @@ export async function PortalMoneySection({ actor, commissionId, returned }: { ac
   const versions = await listQuotesFor(client, commissionId, { asClient: true });
   const payments = await listCommissionPayments(client, commissionId);
   const docs = await listDocumentsFor(client, commissionId);
+  const credits = await listCreditNotesFor(client, commissionId);
   const current = versions[0];
   if (!current && !payments.length) return null;
   const q = current ? quoteOf(current) : null;
@@ -90,6 +92,14 @@ export async function PortalMoneySection({ actor, commissionId, returned }: { ac
                       {d.kind === "invoice" ? "Invoice" : "Receipt"} {documentLabel(d)} (PDF)
                     </a>{" "}
                     — {formatMoney(d.totalMinor, d.currency)}, {d.issuedAt.toISOString().slice(0, 10)}
+                  </li>
+                ))}
+                {credits.map((n) => (
+                  <li key={n.id}>
+                    <a href={`/api/credit-notes/${n.id}/pdf`} download>
+                      Credit note {creditNoteLabel(n.number)} (PDF)
+                    </a>{" "}
+                    — {formatMoney(n.totalMinor, n.currency)}, {n.issuedAt.toISOString().slice(0, 10)}
                   </li>
                 ))}
               </ul>

@@ -18,6 +18,7 @@ import { explainChange } from "@/lib/core/pricing/explain-change";
 import { formatMoney, minorToDecimalString } from "@/lib/core/pricing/format-money";
 import { labourLevelForStudio, labourLevelNote } from "@/lib/core/pricing/labour-level";
 import { majorToMinor } from "@/lib/schemas/money";
+import { formatRatePpm, type TaxCategory } from "@/lib/core/pricing/tax";
 import { formatMinutes } from "@/lib/core/production/time-entries";
 
 interface YarnOption {
@@ -27,7 +28,28 @@ interface YarnOption {
   priceMinor: number;
 }
 
-type MoneyText = { designFee: string; shipping: string; discount: string; rushFee: string; extras: { label: string; amount: string }[] };
+type MoneyText = { designFee: string; shipping: string; discount: string; rushFee: string; extras: { label: string; amount: string; taxCategory?: TaxCategory | null }[] };
+
+/** A line's tax category: "" follows the studio's default for that kind of line. */
+function TaxCategorySelect(props: { id: string; label: string; value: TaxCategory | null | undefined; policy: QuotePolicy; onChange: (v: TaxCategory | null) => void }) {
+  const cats = props.policy.taxCategories ?? [];
+  if (!cats.length) return null;
+  return (
+    <div className="flex flex-col gap-1">
+      <label htmlFor={props.id} className="font-semibold">
+        {props.label}
+      </label>
+      <select id={props.id} className="rounded-md border border-bark/40 bg-white px-3 py-2" value={props.value ?? ""} onChange={(e) => props.onChange((e.target.value || null) as TaxCategory | null)}>
+        <option value="">Studio default</option>
+        {cats.map((c) => (
+          <option key={c.id} value={c.id}>
+            {c.label ?? c.id}
+          </option>
+        ))}
+      </select>
+    </div>
+  );
+}
 
 export function QuoteBuilder(props: {
   commissionId: string;
@@ -51,13 +73,16 @@ export function QuoteBuilder(props: {
   const toText = (minor: number | null | undefined) => (minor ? minorToDecimalString(minor, cur) : "");
   const router = useRouter();
   const [pieces, setPieces] = useState<PieceFeatures[]>(props.initial.pieces);
-  const [materials, setMaterials] = useState(props.initial.materials.map((m) => ({ yarnId: m.yarnId, skeins: m.skeins })));
+  const [materials, setMaterials] = useState<{ yarnId: string; skeins: number; taxCategory?: TaxCategory | null }[]>(
+    props.initial.materials.map((m) => ({ yarnId: m.yarnId, skeins: m.skeins, taxCategory: m.taxCategory ?? null })),
+  );
+  const [labourTaxCategory, setLabourTaxCategory] = useState<TaxCategory | null>(props.initial.labourTaxCategory ?? null);
   const [money, setMoney] = useState<MoneyText>({
     designFee: toText(props.initial.designFeeMinor),
     shipping: toText(props.initial.shippingMinor),
     discount: toText(props.initial.discountMinor),
     rushFee: toText(props.initial.rushFeeMinor),
-    extras: props.initial.extras.map((e) => ({ label: e.label, amount: toText(e.amountMinor) })),
+    extras: props.initial.extras.map((e) => ({ label: e.label, amount: toText(e.amountMinor), taxCategory: e.taxCategory ?? null })),
   });
   const [requestedDate, setRequestedDate] = useState(props.initial.requestedDate ?? "");
   const [earliestDate, setEarliestDate] = useState(props.initial.earliestDate ?? "");
@@ -82,9 +107,10 @@ export function QuoteBuilder(props: {
       .filter((m) => yarnById.has(m.yarnId))
       .map((m) => {
         const y = yarnById.get(m.yarnId)!;
-        return { yarnId: y.id, label: `${y.name}, ${y.colourName} (skeins)`, skeins: m.skeins, unitPriceMinor: y.priceMinor };
+        return { yarnId: y.id, label: `${y.name}, ${y.colourName} (skeins)`, skeins: m.skeins, unitPriceMinor: y.priceMinor, taxCategory: m.taxCategory ?? null };
       }),
-    extras: money.extras.map((e) => ({ label: e.label, amountMinor: parse(e.amount) ?? 0 })),
+    extras: money.extras.map((e) => ({ label: e.label, amountMinor: parse(e.amount) ?? 0, taxCategory: e.taxCategory ?? null })),
+    labourTaxCategory,
     designFeeMinor: parse(money.designFee) ?? 0,
     shippingMinor: parse(money.shipping) ?? 0,
     discountMinor: parse(money.discount) ?? 0,
@@ -269,6 +295,13 @@ export function QuoteBuilder(props: {
                 onChange={(e) => setMaterials((ms) => ms.map((x, j) => (j === i ? { ...x, skeins: Math.max(0, Math.round(Number(e.target.value) || 0)) } : x)))}
                 errors={fe[`materials.${i}.skeins`]}
               />
+              <TaxCategorySelect
+                id={`yarn-tax-${i}`}
+                label={`Tax on yarn ${i + 1}`}
+                policy={policy}
+                value={mat.taxCategory}
+                onChange={(v) => setMaterials((ms) => ms.map((x, j) => (j === i ? { ...x, taxCategory: v } : x)))}
+              />
               <Button variant="quiet" onClick={() => setMaterials((ms) => ms.filter((_, j) => j !== i))}>
                 Remove yarn {i + 1}
               </Button>
@@ -287,6 +320,7 @@ export function QuoteBuilder(props: {
 
         <fieldset className="grid gap-3 sm:grid-cols-2">
           <legend className="mb-2 text-xl">Fees, shipping and discount ({cur})</legend>
+          <TaxCategorySelect id="labour-tax" label="Tax on the labour (all stages)" policy={policy} value={labourTaxCategory} onChange={setLabourTaxCategory} />
           <Field label="Design fee" inputMode="decimal" value={money.designFee} onChange={(e) => setMoney({ ...money, designFee: e.target.value })} errors={moneyErrors.designFee ? [moneyErrors.designFee] : undefined} />
           <Field label="Shipping" inputMode="decimal" value={money.shipping} onChange={(e) => setMoney({ ...money, shipping: e.target.value })} errors={moneyErrors.shipping ? [moneyErrors.shipping] : undefined} />
           <Field label="Discount" hint="Off the work and materials, not shipping." inputMode="decimal" value={money.discount} onChange={(e) => setMoney({ ...money, discount: e.target.value })} errors={moneyErrors.discount ? [moneyErrors.discount] : undefined} />
@@ -299,6 +333,13 @@ export function QuoteBuilder(props: {
                 value={x.amount}
                 onChange={(e) => setMoney({ ...money, extras: money.extras.map((y, j) => (j === i ? { ...y, amount: e.target.value } : y)) })}
                 errors={moneyErrors[`extras.${i}`] ? [moneyErrors[`extras.${i}`]] : undefined}
+              />
+              <TaxCategorySelect
+                id={`extra-tax-${i}`}
+                label={`Tax on extra ${i + 1}`}
+                policy={policy}
+                value={x.taxCategory}
+                onChange={(v) => setMoney({ ...money, extras: money.extras.map((y, j) => (j === i ? { ...y, taxCategory: v } : y)) })}
               />
               <Button variant="quiet" onClick={() => setMoney({ ...money, extras: money.extras.filter((_, j) => j !== i) })}>
                 Remove extra {i + 1}
@@ -392,9 +433,18 @@ export function QuoteBuilder(props: {
                       <td className="text-right tabular-nums">{m(preview.quote.subtotalMinor)}</td>
                     </tr>
                   ) : null}
+                  {(preview.quote.taxByRate.length > 1 ? preview.quote.taxByRate : []).map((r) => (
+                    <tr key={r.category}>
+                      <th scope="row" className="text-left font-normal">
+                        {r.label} ({formatRatePpm(r.ratePpm)}) on {m(r.netMinor)}
+                      </th>
+                      <td className="text-right tabular-nums">{m(r.taxMinor)}</td>
+                    </tr>
+                  ))}
                   <tr>
                     <th scope="row" className="text-left font-normal">
-                      {preview.quote.pricesIncludeTax ? "Tax included" : "Tax"} ({preview.quote.taxRatePpm / 10_000} %)
+                      {preview.quote.pricesIncludeTax ? "Tax included" : "Tax"}
+                      {preview.quote.taxByRate.length > 1 ? " (all rates)" : ` (${formatRatePpm(preview.quote.taxRatePpm)})`}
                     </th>
                     <td className="text-right tabular-nums">{m(preview.quote.taxMinor)}</td>
                   </tr>

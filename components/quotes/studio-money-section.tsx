@@ -4,6 +4,7 @@ import { Card } from "@/components/ui/card";
 import { buttonClass } from "@/components/ui/button";
 import { formatMoney } from "@/lib/core/pricing/format-money";
 import { can, type Actor } from "@/lib/server/authz";
+import { creditNoteLabel, listCreditNotesFor } from "@/lib/server/credit-notes";
 import { documentLabel, listCommissionPayments, listDocumentsFor, previewRefund } from "@/lib/server/payments";
 import { getCommissionFor } from "@/lib/server/queries/commissions";
 import { listQuotesFor } from "@/lib/server/quotes";
@@ -19,6 +20,7 @@ export async function StudioMoneySection({ actor, commissionId }: { actor: Actor
   const versions = await listQuotesFor(actor, c.id);
   const payments = await listCommissionPayments(actor, c.id);
   const docs = await listDocumentsFor(actor, c.id);
+  const credits = await listCreditNotesFor(actor, c.id);
   const refund = owner && payments.some((p) => p.status === "paid" || p.status === "partially_refunded") ? await previewRefund(actor, c.id).catch(() => null) : null;
   const balanceAsked = payments.some((p) => p.kind === "balance" && p.status !== "expired");
   return (
@@ -69,6 +71,13 @@ export async function StudioMoneySection({ actor, commissionId }: { actor: Actor
             <li key={d.id}>
               <a href={`/api/documents/${d.id}/pdf`} download>
                 {d.kind === "invoice" ? "Invoice" : "Receipt"} {documentLabel(d)} (PDF)
+              </a>
+            </li>
+          ))}
+          {credits.map((n) => (
+            <li key={n.id}>
+              <a href={`/api/credit-notes/${n.id}/pdf`} download>
+                Credit note {creditNoteLabel(n.number)} (PDF)
               </a>
             </li>
           ))}

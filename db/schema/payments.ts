@@ -72,7 +72,8 @@ export const webhookEvents = pgTable("webhook_events", {
   processedAt: timestamp("processed_at", { withTimezone: true }),
 });
 
-export const documentKind = pgEnum("document_kind", ["invoice", "receipt"]);
+/** credit_note: only a counter kind (credit notes live in their own table, numbered on their own). */
+export const documentKind = pgEnum("document_kind", ["invoice", "receipt", "credit_note"]);
 
 /** Invoices and receipts, numbered per studio and kind without gaps (allocated in the same transaction). */
 export const invoices = pgTable(
@@ -85,7 +86,7 @@ export const invoices = pgTable(
     commissionId: uuid("commission_id")
       .notNull()
       .references(() => commissions.id, { onDelete: "cascade" }),
-    kind: documentKind("kind").notNull(),
+    kind: documentKind("kind").$type<"invoice" | "receipt">().notNull(),
     number: integer("number").notNull(),
     quoteVersionId: uuid("quote_version_id").references(() => quoteVersions.id),
     paymentId: uuid("payment_id").references(() => payments.id),
@@ -114,5 +115,47 @@ export const documentCounters = pgTable(
   (t) => [uniqueIndex("document_counters_pk").on(t.studioId, t.kind)],
 );
 
+/**
+ * A credit note for one refund: its own gap-free number per studio (counter kind "credit_note",
+ * taken in the refund's transaction), the document it corrects, and negative amounts per rate.
+ * One per refund (unique refund_id), whichever path records the refund first.
+ */
+export const creditNotes = pgTable(
+  "credit_notes",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    studioId: uuid("studio_id")
+      .notNull()
+      .references(() => studios.id, { onDelete: "cascade" }),
+    commissionId: uuid("commission_id")
+      .notNull()
+      .references(() => commissions.id, { onDelete: "cascade" }),
+    number: integer("number").notNull(),
+    refundId: uuid("refund_id")
+      .notNull()
+      .unique()
+      .references(() => refunds.id, { onDelete: "cascade" }),
+    paymentId: uuid("payment_id")
+      .notNull()
+      .references(() => payments.id, { onDelete: "cascade" }),
+    /** the receipt or invoice this credit note corrects */
+    correctsId: uuid("corrects_id").references(() => invoices.id),
+    currency: text("currency").notNull(),
+    /** ISO 4217 minor digits of the currency when issued (the amounts are in its minor units) */
+    minorDigits: smallint("minor_digits").notNull(),
+    /** lines per rate (negative), reason, corrected document's number, as issued */
+    content: jsonb("content").$type<Record<string, unknown>>().notNull(),
+    /** negative: the amount credited back, tax included */
+    totalMinor: integer("total_minor").notNull(),
+    issuedAt: timestamp("issued_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex("credit_notes_studio_number").on(t.studioId, t.number),
+    index("credit_notes_commission").on(t.commissionId),
+    check("credit_notes_negative", sql`${t.totalMinor} < 0`),
+  ],
+);
+
 export type Payment = typeof payments.$inferSelect;
+export type CreditNote = typeof creditNotes.$inferSelect;
 export type Invoice = typeof invoices.$inferSelect;

@@ -30,6 +30,8 @@ export const studios = pgTable(
     timeZone: text("time_zone").notNull().default("Europe/London"),
     brandHex: text("brand_hex").notNull().default("#A3342A"),
     contactEmail: text("contact_email").notNull(),
+    /** seller details on invoices: the legal name (when it differs from the trading name), address, VAT number */
+    legalName: text("legal_name").notNull().default(""),
     address: text("address").notNull().default(""),
     taxNumber: text("tax_number").notNull().default(""),
     /** studio settings (rates, tax, deposit, policies); validated by lib/schemas when read and written */

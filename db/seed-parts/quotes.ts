@@ -21,6 +21,15 @@ export const DEMO_SETTINGS = {
   quoteValidDays: 30,
   rates: { ...defaultRates },
   depositRefundBeforeKnittingPercent: 100,
+  // UK VAT categories (the standard rate is taxRatePercent): reduced 5 %; young children's clothing
+  // zero-rated (VAT Notice 714); exempt for anything outside VAT. Every kind of line defaults to standard.
+  taxCategories: [
+    { id: "standard" as const, label: "Standard rate", ratePercent: 20 },
+    { id: "reduced" as const, label: "Reduced rate", ratePercent: 5 },
+    { id: "zero" as const, label: "Zero-rated (young children's clothing)", ratePercent: 0 },
+    { id: "exempt" as const, label: "Exempt", ratePercent: 0 },
+  ],
+  taxDefaults: { labour: "standard" as const, material: "standard" as const, design: "standard" as const, rush: "standard" as const, fee: "standard" as const, shipping: "standard" as const },
 };
 
 const POLICY: QuotePolicy = {
@@ -84,7 +93,7 @@ const QUOTES: DemoQuote[] = [
 ];
 
 export const seedQuotes: SeedPart = async (tx, ctx: SeedContext) => {
-  await tx.update(studios).set({ settings: DEMO_SETTINGS, taxNumber: "GB 123 4567 89", address: "The Old Byre, Hollin Lane, Kendal LA8 0QT" }).where(eq(studios.id, ctx.studioId));
+  await tx.update(studios).set({ settings: DEMO_SETTINGS, legalName: "Maren Hollin, trading as Hollin Knitworks", taxNumber: "GB 123 4567 89", address: "The Old Byre, Hollin Lane, Kendal LA8 0QT" }).where(eq(studios.id, ctx.studioId));
   const yarnRows = await tx.select().from(yarns).where(eq(yarns.studioId, ctx.studioId));
   const byColour = new Map(yarnRows.map((y) => [y.colourName, y]));
   const now = Date.now();

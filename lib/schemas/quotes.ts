@@ -1,6 +1,7 @@
 // Quote drafts (the builder's JSON body), acceptance and change requests from the portal.
 import { z } from "zod";
 import { calendarDate, safeString } from "./common";
+import { taxCategorySchema } from "./tax-settings";
 
 const count = (max = 1_000_000) => z.number({ error: "Enter a number." }).finite().min(0, "Use 0 or more.").max(max, `At most ${max}.`);
 const minor = z.number({ error: "Enter an amount." }).int("Whole minor units only.").min(0, "Use 0 or more.").max(100_000_000, "That amount is too large.");
@@ -24,9 +25,14 @@ export const pieceFeaturesSchema = z.object({
 export const quoteDraftSchema = z.object({
   pieces: z.array(pieceFeaturesSchema).min(1, "Add at least one piece.").max(12),
   materials: z
-    .array(z.object({ yarnId: z.string().uuid("Choose a yarn."), skeins: z.number().int("Whole skeins.").min(0).max(200) }))
+    .array(z.object({ yarnId: z.string().uuid("Choose a yarn."), skeins: z.number().int("Whole skeins.").min(0).max(200), taxCategory: taxCategorySchema.nullable().optional() }))
     .max(16),
-  extras: z.array(z.object({ label: safeString().trim().min(1, "Name the extra.").max(80), amountMinor: minor })).max(10).default([]),
+  extras: z
+    .array(z.object({ label: safeString().trim().min(1, "Name the extra.").max(80), amountMinor: minor, taxCategory: taxCategorySchema.nullable().optional() }))
+    .max(10)
+    .default([]),
+  /** one tax category for all the labour, overriding the studio's default */
+  labourTaxCategory: taxCategorySchema.nullable().optional(),
   designFeeMinor: minor.default(0),
   shippingMinor: minor.default(0),
   discountMinor: minor.default(0),

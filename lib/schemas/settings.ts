@@ -3,6 +3,7 @@
 import { z } from "zod";
 import { defaultRates, type LabourRates } from "@/lib/core/labour/default-rates";
 import { p80FactorsSchema } from "@/lib/core/labour/schemas";
+import { taxCategoriesSettingSchema, taxDefaultsSchema } from "./tax-settings";
 
 const nonNegative = z.number().min(0, "Use 0 or more.");
 const positive = z.number().positive("Use a number above 0.");
@@ -27,7 +28,12 @@ export const studioSettingsSchema = z.object({
   hourlyRateMinor: z.number().int().min(0).default(2200),
   /** which labour figure prices a quote; P80 unless the studio chooses (settings and every quote say which) */
   pricePolicy: z.enum(["p50", "p80"]).default("p80"),
+  /** the standard rate (with taxCategories: kept equal to the standard category's rate) */
   taxRatePercent: z.number().min(0).max(100).default(0),
+  /** the studio's tax categories; empty: one rate (taxRatePercent) on every line */
+  taxCategories: taxCategoriesSettingSchema.default([]),
+  /** the category of each kind of quote line unless the line names its own */
+  taxDefaults: taxDefaultsSchema.prefault({}),
   pricesIncludeTax: z.boolean().default(true),
   depositPercent: z.number().min(0).max(100).default(50),
   designFeeMinor: z.number().int().min(0).default(0),

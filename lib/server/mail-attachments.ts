@@ -3,7 +3,7 @@ import "server-only";
 // transaction that queued the mail has committed). A failure here is a failed attempt, retried.
 import { eq } from "drizzle-orm";
 import { db } from "@/db";
-import { invoices, quoteVersions } from "@/db/schema";
+import { creditNotes, invoices, quoteVersions } from "@/db/schema";
 import { renderDocumentPdf } from "./payments";
 import { renderQuotePdf } from "./quotes";
 
@@ -20,6 +20,12 @@ export async function renderMailAttachment(key: string): Promise<Buffer> {
     const [doc] = await db.select().from(invoices).where(eq(invoices.id, id));
     if (!doc) throw new Error(`the document ${id} for this mail no longer exists`);
     return renderDocumentPdf(doc);
+  }
+  if (kind === "credit-note") {
+    const { renderCreditNotePdf } = await import("./credit-notes");
+    const [cn] = await db.select().from(creditNotes).where(eq(creditNotes.id, id));
+    if (!cn) throw new Error(`the credit note ${id} for this mail no longer exists`);
+    return renderCreditNotePdf(cn);
   }
   throw new Error(`unknown attachment to render: ${kind}`);
 }

@@ -30,7 +30,7 @@ export interface QueuedMail {
  * Bytes queued with the mail, or a document rendered by the worker when it sends (`render` names it,
  * see mail-attachments.ts): PDFs are never rendered inside the transaction that queues their mail.
  */
-export type MailAttachment = { filename: string; contentType: string } & ({ base64: string } | { render: `${"quote" | "document"}:${string}` });
+export type MailAttachment = { filename: string; contentType: string } & ({ base64: string } | { render: `${"quote" | "document" | "credit-note"}:${string}` });
 
 export async function enqueueMail(mail: QueuedMail, tx: Executor = db): Promise<void> {
   await tx

@@ -31,6 +31,7 @@ import { getRefundDue, type CancellationStage } from "@/lib/core/pricing/cancell
 import { policyFromSettings } from "@/lib/core/pricing/studio-policy";
 import { formatMoney } from "@/lib/core/pricing/format-money";
 import { fromProviderAmount, providerStepMinor } from "@/lib/core/pricing/provider-currency";
+import { formatRatePpm, remainderByRate, splitByRate, taxByRateOf, type TaxRateShare, type TaxRateTotal } from "@/lib/core/pricing/tax";
 import { canMove } from "@/lib/core/workflow";
 import { env } from "@/lib/env";
 import { eventEnvelopeSchema, HANDLED_EVENT_TYPES, handledEventSchema } from "@/lib/schemas/payment-events";
@@ -188,7 +189,16 @@ export interface DocumentContent {
   title: string;
   commissionNumber: number;
   quoteVersion: number;
-  lines: { label: string; amountMinor: number }[];
+  /** per: the unit the unit price is for ("h" for labour) */
+  lines: { label: string; amountMinor: number; quantity?: string; unitPriceMinor?: number; per?: string; taxCategory?: string; ratePpm?: number; rateLabel?: string }[];
+  /** the seller as at issue (VAT invoices: name, address, VAT number) */
+  seller?: { name: string; legalName: string; address: string; taxNumber: string };
+  /** date of supply / tax point: for a receipt the day the payment arrived; for the balance invoice the day it is issued (the piece is ready) */
+  supplyDate?: string;
+  /** totals per rate of the whole quote */
+  taxByRate?: TaxRateTotal[];
+  /** for receipts: the amount received split by rate, with the tax within it */
+  receivedByRate?: TaxRateShare[] | null;
   quote: Pick<Quote, "subtotalMinor" | "taxMinor" | "totalMinor" | "pricesIncludeTax" | "taxRatePpm" | "depositMinor" | "balanceMinor">;
   depositPaidMinor: number;
   balancePaidMinor: number;
@@ -202,7 +212,7 @@ export interface DocumentContent {
  * Takes the next number for the studio and kind (the counter row stays locked until the
  * transaction ends, so concurrent issues queue and a rolled-back one gives its number back).
  */
-export async function allocateDocumentNumber(tx: Tx, studioId: string, kind: "invoice" | "receipt"): Promise<number> {
+export async function allocateDocumentNumber(tx: Tx, studioId: string, kind: "invoice" | "receipt" | "credit_note"): Promise<number> {
   await tx.insert(documentCounters).values({ studioId, kind, next: 1 }).onConflictDoNothing();
   const [row] = await tx
     .update(documentCounters)
@@ -241,6 +251,19 @@ export async function issueDocument(
   assertStoredDigits(`This ${opts.kind} cannot be issued`, v);
   const q = v.result as unknown as Quote;
   const paid = await paidSoFar(tx, c.id);
+  const [seller] = await tx.select({ name: studios.name, legalName: studios.legalName, address: studios.address, taxNumber: studios.taxNumber }).from(studios).where(eq(studios.id, c.studioId));
+  const byRate = taxByRateOf(q);
+  const rateOf = new Map(byRate.map((r) => [r.category, r]));
+  // What this receipt acknowledges, by rate: a balance is what the deposit left of each rate; any other part is split pro rata.
+  const received = opts.receivedMinor ?? null;
+  const receivedByRate =
+    received === null
+      ? null
+      : opts.receivedFor === "balance" && received === q.totalMinor - paid.deposit && paid.deposit <= q.totalMinor
+        ? remainderByRate(byRate, splitByRate(paid.deposit, byRate))
+        : received <= q.totalMinor
+          ? splitByRate(received, byRate)
+          : null;
   // The studio's counter row stays locked until commit and every issue of the studio queues on it:
   // take it last, so the queue moves as fast as it can.
   const n = await allocateDocumentNumber(tx, c.studioId, opts.kind);
@@ -251,7 +274,14 @@ export async function issueDocument(
     title: c.title,
     commissionNumber: c.number,
     quoteVersion: v.number,
-    lines: q.lines.map((l) => ({ label: l.label, amountMinor: l.amountMinor })),
+    lines: q.lines.map((l) => {
+      const r = l.taxCategory ? rateOf.get(l.taxCategory) : byRate.length === 1 && l.kind !== "discount" ? byRate[0] : undefined;
+      return { label: l.label, amountMinor: l.amountMinor, quantity: l.quantity, unitPriceMinor: l.unitPriceMinor, per: l.kind === "labour" ? "h" : undefined, taxCategory: l.taxCategory, ratePpm: r?.ratePpm, rateLabel: r?.label };
+    }),
+    seller,
+    supplyDate: new Date().toISOString().slice(0, 10),
+    taxByRate: byRate,
+    receivedByRate,
     quote: { subtotalMinor: q.subtotalMinor, taxMinor: q.taxMinor, totalMinor: q.totalMinor, pricesIncludeTax: q.pricesIncludeTax, taxRatePpm: q.taxRatePpm, depositMinor: q.depositMinor, balanceMinor: q.balanceMinor },
     depositPaidMinor: paid.deposit,
     balancePaidMinor: paid.balance,
@@ -283,7 +313,14 @@ export async function renderDocumentPdf(doc: Invoice): Promise<Buffer> {
   const [s] = await db.select().from(studios).where(eq(studios.id, doc.studioId));
   const k = doc.content as unknown as DocumentContent;
   const cur = doc.currency;
-  const rate = `${k.quote.taxRatePpm / 10_000} %`;
+  const multi = (k.taxByRate?.length ?? 0) > 1;
+  const rate = multi ? "all rates" : `${k.quote.taxRatePpm / 10_000} %`;
+  const taxRow = (r: { category: string; label: string; ratePpm: number; netMinor: number; taxMinor: number; grossMinor: number }) => ({
+    label: r.category === "zero" || r.category === "exempt" || r.label === "Tax" ? r.label : `${r.label} ${formatRatePpm(r.ratePpm)}`,
+    net: money(r.netMinor, cur),
+    tax: money(r.taxMinor, cur),
+    gross: money(r.grossMinor, cur),
+  });
   const balanceLeft = k.quote.totalMinor - k.depositPaidMinor - k.balancePaidMinor;
   const totals = [
     ...(k.quote.pricesIncludeTax
@@ -304,7 +341,8 @@ export async function renderDocumentPdf(doc: Invoice): Promise<Buffer> {
     createElement(InvoiceDocument, {
       kind: doc.kind,
       number: k.number,
-      studio: { name: s.name, address: s.address, contactEmail: s.contactEmail, taxNumber: s.taxNumber, brandHex: s.brandHex },
+      // A document shows the seller as it was when issued.
+      studio: { name: s.name, legalName: k.seller?.legalName ?? s.legalName, address: k.seller?.address ?? s.address, contactEmail: s.contactEmail, taxNumber: k.seller?.taxNumber ?? s.taxNumber, brandHex: s.brandHex },
       clientName: k.clientName,
       clientAddress: k.clientAddress,
       commissionTitle: k.title,
@@ -312,7 +350,20 @@ export async function renderDocumentPdf(doc: Invoice): Promise<Buffer> {
       quoteVersion: k.quoteVersion,
       issuedOn: doc.issuedAt.toISOString().slice(0, 10),
       dueDate: doc.kind === "invoice" ? doc.dueDate : null,
-      lines: k.lines.map((l) => ({ label: l.label, amount: money(l.amountMinor, cur) })),
+      lines: k.lines.map((l) => ({
+        label: l.label,
+        amount: money(l.amountMinor, cur),
+        ...(k.taxByRate
+          ? {
+              quantity: l.quantity ?? (l.amountMinor >= 0 ? "1" : ""),
+              unitPrice: `${money(l.unitPriceMinor ?? l.amountMinor, cur)}${l.per ? ` / ${l.per}` : ""}`,
+              rate: l.ratePpm !== undefined ? (l.taxCategory === "zero" || l.taxCategory === "exempt" ? (l.rateLabel ?? "") : formatRatePpm(l.ratePpm)) : "spread over the rates",
+            }
+          : {}),
+      })),
+      supplyDate: k.supplyDate ?? null,
+      taxByRate: k.taxByRate?.map((r) => taxRow(r)),
+      receivedByRate: k.receivedByRate?.map((r) => taxRow(r)),
       totals,
       taxNote: k.quote.taxRatePpm === 0 ? "No tax is charged." : k.quote.pricesIncludeTax ? "Prices include tax." : "Tax is added to the subtotal.",
       payUrl: doc.kind === "invoice" && balanceLeft > 0 ? k.payUrl : null,
@@ -565,10 +616,17 @@ async function applyEvent(tx: Tx, event: Stripe.Event): Promise<Record<string, u
         [p] = await tx.select().from(payments).where(eq(payments.id, p.id));
         if (!SETTLED.has(p.status)) return { ignored: "payment could not be settled" };
       }
+      const { issueCreditNote } = await import("./credit-notes");
       for (const r of ch.refunds?.data ?? []) {
         const amountMinor = fromProviderAmount(r.amount, p.currency);
         if (amountMinor === null) continue;
-        await tx.insert(refunds).values({ paymentId: p.id, providerRefundId: r.id, amountMinor, minorDigits: p.minorDigits, reason: r.reason ?? "" }).onConflictDoNothing();
+        const [ins] = await tx
+          .insert(refunds)
+          .values({ paymentId: p.id, providerRefundId: r.id, amountMinor, minorDigits: p.minorDigits, reason: r.metadata?.reason ?? r.reason ?? "" })
+          .onConflictDoNothing()
+          .returning({ id: refunds.id });
+        // Only the path that recorded the refund issues its credit note: one per refund.
+        if (ins) await issueCreditNote(tx, ins.id);
       }
       const refunded = Math.min(p.amountMinor, Math.max(p.refundedMinor, fromProviderAmount(ch.amount_refunded, p.currency) ?? 0));
       await tx
@@ -648,7 +706,7 @@ export async function refundByPolicy(actor: Actor, commissionId: string, opts: {
     let r: Stripe.Refund;
     try {
       r = await stripe().refunds.create(
-        { payment_intent: p.paymentIntentId, amount: back.amount, reason: "requested_by_customer", metadata: { paymentId: p.id } },
+        { payment_intent: p.paymentIntentId, amount: back.amount, reason: "requested_by_customer", metadata: { paymentId: p.id, reason: (opts.reason ?? "cancellation policy").slice(0, 500) } },
         { idempotencyKey: `refund-${p.id}-${p.refundedMinor}-${amount}` },
       );
     } catch (err) {
@@ -665,6 +723,8 @@ export async function refundByPolicy(actor: Actor, commissionId: string, opts: {
       if (ins) {
         const refunded = Math.min(row.amountMinor, row.refundedMinor + sentBack);
         await tx.update(payments).set({ refundedMinor: refunded, status: refunded >= row.amountMinor ? "refunded" : "partially_refunded" }).where(eq(payments.id, p.id));
+        const { issueCreditNote } = await import("./credit-notes");
+        await issueCreditNote(tx, ins.id);
       }
       await tx.insert(commissionEvents).values({ commissionId: c.id, actorUserId: actor.userId, actorRole: "owner", kind: "refund", detail: { paymentId: p.id, amountMinor: sentBack, stage: preview.stage } });
     });

@@ -10,6 +10,7 @@ import { formatMoney } from "@/lib/core/pricing/format-money";
 import type { Quote } from "@/lib/core/pricing/build-quote";
 import { PricingInputError } from "@/lib/core/pricing/pricing-error";
 import { isProviderCurrency, withProviderDeposit } from "@/lib/core/pricing/provider-currency";
+import { formatRatePpm, taxByRateOf } from "@/lib/core/pricing/tax";
 import { env } from "@/lib/env";
 import type { QuoteDraftBody } from "@/lib/schemas/quotes";
 import type { StudioSettings } from "@/lib/schemas/settings";
@@ -39,6 +40,10 @@ export function policyFrom(settings: StudioSettings, currency: string): QuotePol
     taxRatePercent: settings.taxRatePercent,
     pricesIncludeTax: settings.pricesIncludeTax,
     depositPercent: settings.depositPercent,
+    // The standard category's rate is the studio's tax rate (taxRatePercent), so the two never disagree.
+    ...(settings.taxCategories.length
+      ? { taxCategories: settings.taxCategories.map((c) => (c.id === "standard" ? { id: c.id, label: c.label } : c)), taxDefaults: settings.taxDefaults }
+      : {}),
     rates: settings.rates,
     p80Factors: settings.p80Factors,
   };
@@ -57,7 +62,7 @@ export const storedInputOf = (v: Pick<QuoteVersion, "input">) => v.input as unkn
 
 export function quoteTotalsRows(q: Quote) {
   const m = (n: number) => formatMoney(n, q.currency);
-  const rate = `${q.taxRatePpm / 10_000} %`;
+  const rate = (q.taxByRate?.length ?? 0) > 1 ? "all rates" : `${q.taxRatePpm / 10_000} %`;
   return [
     ...(q.pricesIncludeTax
       ? [
@@ -76,7 +81,8 @@ export function quoteTotalsRows(q: Quote) {
 
 export function taxNote(q: Quote): string {
   if (q.taxRatePpm === 0) return "No tax is charged on this quote.";
-  return q.pricesIncludeTax ? "Prices include tax; the tax contained is shown above." : "Tax is added to the subtotal; it is worked once on the whole.";
+  const once = (q.taxByRate?.length ?? 0) > 1 ? "it is worked once per rate, on that rate's lines" : "it is worked once on the whole";
+  return q.pricesIncludeTax ? `Prices include tax; the tax contained is shown above (${once}).` : `Tax is added to the subtotal; ${once}.`;
 }
 
 // --- the builder ------------------------------------------------------------------------------
@@ -144,12 +150,13 @@ async function draftFromBody(studioId: string, body: QuoteDraftBody): Promise<Qu
   const materials = body.materials.map((m, i) => {
     const y = byId.get(m.yarnId);
     if (!y) throw new AppError(422, "invalid_input", "Choose a yarn from the studio's list.", { [`materials.${i}.yarnId`]: ["Choose a yarn from the studio's list."] });
-    return { yarnId: y.id, label: `${y.name}, ${y.colourName} (skeins)`, skeins: m.skeins, unitPriceMinor: y.priceMinor };
+    return { yarnId: y.id, label: `${y.name}, ${y.colourName} (skeins)`, skeins: m.skeins, unitPriceMinor: y.priceMinor, taxCategory: m.taxCategory ?? null };
   });
   return {
     pieces: body.pieces,
     materials,
     extras: body.extras,
+    labourTaxCategory: body.labourTaxCategory ?? null,
     designFeeMinor: body.designFeeMinor,
     shippingMinor: body.shippingMinor,
     discountMinor: body.discountMinor,
@@ -163,7 +170,8 @@ function compose(draft: QuoteDraft, policy: QuotePolicy) {
   try {
     return composeQuote(draft, policy);
   } catch (err) {
-    if (err instanceof PricingInputError || err instanceof RangeError) throw new AppError(422, "invalid_quote", err.message);
+    if (err instanceof PricingInputError) throw new AppError(422, "invalid_quote", err.message, err.field ? { [err.field]: [err.message] } : undefined);
+    if (err instanceof RangeError) throw new AppError(422, "invalid_quote", err.message);
     throw err;
   }
 }
@@ -217,7 +225,7 @@ export async function saveQuoteDraft(actor: Actor, commissionId: string, body: Q
 async function studioDoc(studioId: string) {
   const [s] = await db.select().from(studios).where(eq(studios.id, studioId));
   if (!s) throw notFound("That studio");
-  return { row: s, doc: { name: s.name, address: s.address, contactEmail: s.contactEmail, taxNumber: s.taxNumber, brandHex: s.brandHex } };
+  return { row: s, doc: { name: s.name, legalName: s.legalName, address: s.address, contactEmail: s.contactEmail, taxNumber: s.taxNumber, brandHex: s.brandHex } };
 }
 
 export const portalUrl = (commissionId: string) => `${env.BETTER_AUTH_URL}/portal/commissions/${commissionId}`;
@@ -242,6 +250,16 @@ export async function renderQuotePdf(v: QuoteVersion): Promise<Buffer> {
       validUntil: v.validUntil ?? "",
       lines: q.lines.map((l) => ({ label: l.label, amount: formatMoney(l.amountMinor, q.currency) })),
       totals: quoteTotalsRows(q),
+      // Totals per rate whenever there is more than one (they add up to the totals above).
+      taxByRate:
+        taxByRateOf(q).length > 1
+          ? taxByRateOf(q).map((r) => ({
+              label: r.category === "zero" || r.category === "exempt" ? r.label : `${r.label} ${formatRatePpm(r.ratePpm)}`,
+              net: formatMoney(r.netMinor, q.currency),
+              tax: formatMoney(r.taxMinor, q.currency),
+              gross: formatMoney(r.grossMinor, q.currency),
+            }))
+          : undefined,
       taxNote: taxNote(q),
       labourNote: labourLevelNote(q),
       message: v.messageToClient,

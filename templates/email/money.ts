@@ -31,3 +31,17 @@ export function documentMessage(p: { kind: "invoice" | "receipt"; number: string
     accentHex: p.accentHex,
   });
 }
+
+export function creditNoteMessage(p: { number: string; clientName: string; studioName: string; title: string; amount: string; url: string; accentHex?: string }) {
+  return renderEmail({
+    subject: `Credit note ${p.number} from ${p.studioName}`,
+    heading: `Credit note ${p.number}`,
+    paragraphs: [
+      `Hello ${p.clientName},`,
+      `${p.studioName} has refunded ${p.amount} for "${p.title}". The credit note is attached as a PDF; it corrects the receipt or invoice it names, tax included.`,
+      "The refund goes back to the card that paid. You can download the credit note again from your portal at any time.",
+    ],
+    action: { label: "Open my commission", url: p.url },
+    accentHex: p.accentHex,
+  });
+}

@@ -1,7 +1,7 @@
 // Invoices and receipts: studio and tax number, client, commission, the accepted quote's lines,
 // tax, deposit paid, balance due or paid, due date and payment link.
 import { Document, Link, Page, Text, View } from "@react-pdf/renderer";
-import { LineTable, StudioHeader, Totals, styles, type DocLine, type DocStudio } from "./parts";
+import { LineTable, StudioHeader, TaxByRateTable, Totals, styles, type DocLine, type DocStudio, type DocTaxRow } from "./parts";
 
 export interface InvoiceDocProps {
   kind: "invoice" | "receipt";
@@ -20,6 +20,12 @@ export interface InvoiceDocProps {
   taxNote: string;
   payUrl: string | null;
   paidNote: string | null;
+  /** date of supply / tax point, when it differs from the date of issue or must be stated */
+  supplyDate?: string | null;
+  /** totals per rate of the whole supply */
+  taxByRate?: DocTaxRow[];
+  /** the part this receipt acknowledges, per rate with the tax within it (a deposit is a tax point) */
+  receivedByRate?: DocTaxRow[];
 }
 
 export function InvoiceDocument(p: InvoiceDocProps) {
@@ -37,8 +43,11 @@ export function InvoiceDocument(p: InvoiceDocProps) {
           </Text>
           {p.dueDate ? <Text>Due by {p.dueDate}</Text> : null}
         </View>
+        {p.supplyDate ? <Text>{p.kind === "receipt" ? "Tax point (date received)" : "Date of supply"}: {p.supplyDate}</Text> : null}
         <LineTable lines={p.lines} />
         <Totals rows={p.totals} />
+        {p.taxByRate ? <TaxByRateTable title="Tax by rate" rows={p.taxByRate} /> : null}
+        {p.receivedByRate ? <TaxByRateTable title="This payment by rate, tax within it" rows={p.receivedByRate} /> : null}
         <Text style={[styles.block, styles.small]}>{p.taxNote}</Text>
         {p.paidNote ? <Text style={styles.block}>{p.paidNote}</Text> : null}
         {p.payUrl ? (

@@ -1,6 +1,6 @@
 // The quote a client receives: lines from the quote version, tax, deposit and balance, validity.
 import { Document, Page, Text, View } from "@react-pdf/renderer";
-import { LineTable, StudioHeader, Totals, styles, type DocLine, type DocStudio } from "./parts";
+import { LineTable, StudioHeader, TaxByRateTable, Totals, styles, type DocLine, type DocStudio, type DocTaxRow } from "./parts";
 
 export interface QuoteDocProps {
   studio: DocStudio;
@@ -17,6 +17,8 @@ export interface QuoteDocProps {
   labourNote?: string | null;
   message: string;
   portalUrl: string;
+  /** totals per tax rate, when the quote has more than one */
+  taxByRate?: DocTaxRow[];
 }
 
 export function QuoteDocument(p: QuoteDocProps) {
@@ -34,6 +36,7 @@ export function QuoteDocument(p: QuoteDocProps) {
         {p.message ? <Text style={styles.block}>{p.message}</Text> : null}
         <LineTable lines={p.lines} />
         <Totals rows={p.totals} />
+        {p.taxByRate ? <TaxByRateTable title="Tax by rate" rows={p.taxByRate} /> : null}
         {p.labourNote ? <Text style={[styles.block, styles.small]}>{p.labourNote}</Text> : null}
         <Text style={[styles.block, styles.small]}>{p.taxNote}</Text>
         <Text style={[styles.block, styles.small]}>

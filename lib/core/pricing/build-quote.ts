@@ -4,6 +4,19 @@ import { getMinorDigits } from "./currency";
 import { PPM_WHOLE, parseExactDecimal, percentToPpm } from "./decimal";
 import { PricingInputError } from "./pricing-error";
 import { divideRounded, toSafeMinor } from "./rounding";
+import {
+  TAX_CATEGORIES,
+  TAXABLE_KINDS,
+  computeTaxByRate,
+  resolveTaxCategories,
+  splitByRate,
+  type TaxableKind,
+  type TaxCategory,
+  type TaxCategoryInput,
+  type TaxCategoryRate,
+  type TaxRateShare,
+  type TaxRateTotal,
+} from "./tax";
 
 export type QuoteLineKind = "labour" | "design" | "material" | "rush" | "fee" | "shipping" | "discount";
 
@@ -11,6 +24,12 @@ export interface QuoteLine {
   label: string;
   amountMinor: number;
   kind: QuoteLineKind;
+  /** the line's tax category (a discount line has none: it is spread over the categories) */
+  taxCategory?: TaxCategory;
+  /** for invoices: "2.5" skeins, "3 h 20 min"; absent means one */
+  quantity?: string;
+  /** for invoices: price of one unit (per skein, per hour) */
+  unitPriceMinor?: number;
 }
 
 /** Which labour figure a quote charges: the typical one, or the one four jobs in five stay within. */
@@ -24,11 +43,15 @@ export interface MaterialInput {
   /** skeins, grams, buttons…; up to 3 decimal places, read exactly */
   quantity: number | string;
   unitPriceMinor: number;
+  /** overrides the default category for materials */
+  taxCategory?: TaxCategory;
 }
 
 export interface FeeInput {
   label: string;
   amountMinor: number;
+  /** overrides the default category for extras and fees */
+  taxCategory?: TaxCategory;
 }
 
 /** Rush applies when the requested date is before the earliest date the studio can offer, or on request. */
@@ -51,8 +74,14 @@ export interface QuoteInput {
   fees?: FeeInput[];
   shippingMinor?: number;
   discount?: DiscountInput;
-  /** 0–100, up to 4 decimal places (e.g. 20, 8.875); default 0 */
+  /** 0–100, up to 4 decimal places (e.g. 20, 8.875); default 0. With taxCategories: the standard rate. */
   taxRatePercent?: number | string;
+  /** the studio's categories (standard, reduced, zero, exempt); absent: one rate, taxRatePercent, for every line */
+  taxCategories?: TaxCategoryInput[];
+  /** the category of each kind of line unless the line names its own; default "standard" */
+  taxDefaults?: Partial<Record<TaxableKind, TaxCategory>>;
+  /** per labour line (stage key) overriding taxDefaults.labour */
+  labourTaxCategories?: Record<string, TaxCategory>;
   /** true: every line already contains tax; false: tax is added on top. Default false. */
   pricesIncludeTax?: boolean;
   /** 0–100, default 50 */
@@ -78,6 +107,10 @@ export interface Quote {
   depositPpm: number;
   labourPolicy: LabourPolicy;
   rushApplied: boolean;
+  /** per category in use (standard, reduced, zero, exempt order); they add up exactly to the totals */
+  taxByRate: TaxRateTotal[];
+  /** the deposit split by category, with the tax within it (for a deposit receipt) */
+  depositByRate: TaxRateShare[];
 }
 
 export const DEFAULT_DEPOSIT_PERCENT = 50;
@@ -129,10 +162,14 @@ function isRush(rush: RushInput | undefined): boolean {
 }
 
 export function getLabourLines(input: Pick<QuoteInput, "hourlyRateMinor" | "hourlyRatesMinor" | "labourMinutes" | "labourPolicy">): QuoteLine[] {
+  return getKeyedLabourLines(input).map((x) => x.line);
+}
+
+function getKeyedLabourLines(input: Pick<QuoteInput, "hourlyRateMinor" | "hourlyRatesMinor" | "labourMinutes" | "labourPolicy">): { key: string; line: QuoteLine }[] {
   assertMinorAmount(input.hourlyRateMinor, "hourlyRateMinor");
   const policy = input.labourPolicy ?? DEFAULT_LABOUR_POLICY;
   const labour = input.labourMinutes ?? {};
-  const lines: QuoteLine[] = [];
+  const lines: { key: string; line: QuoteLine }[] = [];
   for (const key of orderLabourKeys(Object.keys(labour))) {
     const minutes = pickStageMinutes(labour[key], policy);
     if (!Number.isSafeInteger(minutes) || minutes < 0) {
@@ -141,7 +178,16 @@ export function getLabourLines(input: Pick<QuoteInput, "hourlyRateMinor" | "hour
     if (minutes === 0) continue;
     const rate = input.hourlyRatesMinor?.[key] ?? input.hourlyRateMinor;
     assertMinorAmount(rate, `hourlyRatesMinor.${key}`);
-    lines.push({ label: `${capitalise(key)} labour (${formatDuration(minutes)})`, amountMinor: getLabourAmountMinor(minutes, rate), kind: "labour" });
+    lines.push({
+      key,
+      line: {
+        label: `${capitalise(key)} labour (${formatDuration(minutes)})`,
+        amountMinor: getLabourAmountMinor(minutes, rate),
+        kind: "labour",
+        quantity: formatDuration(minutes),
+        unitPriceMinor: rate,
+      },
+    });
   }
   return lines;
 }
@@ -158,7 +204,9 @@ export function buildQuote(input: QuoteInput): Quote {
   const depositPpm = percentToPpm(input.depositPercent ?? DEFAULT_DEPOSIT_PERCENT, "depositPercent");
   const pricesIncludeTax = input.pricesIncludeTax ?? false;
 
-  const lines: QuoteLine[] = getLabourLines(input);
+  const keyedLabour = getKeyedLabourLines(input);
+  const labourKeys = new Map(keyedLabour.map((x) => [x.line, x.key]));
+  const lines: QuoteLine[] = keyedLabour.map((x) => x.line);
   const labourTotal = sum(lines);
 
   if (input.designFeeMinor !== undefined && input.designFeeMinor !== 0) {
@@ -172,7 +220,7 @@ export function buildQuote(input: QuoteInput): Quote {
     if (q.units < 0n) throw new PricingInputError(`materials[${i}].quantity must not be negative (got ${String(m.quantity)})`);
     const amount = divideRounded(q.units * BigInt(m.unitPriceMinor), 10n ** BigInt(q.scale));
     const label = String(m.quantity) === "1" ? m.label : `${m.label} × ${String(m.quantity)}`;
-    lines.push({ label, amountMinor: toSafeMinor(amount, `materials[${i}]`), kind: "material" });
+    lines.push({ label, amountMinor: toSafeMinor(amount, `materials[${i}]`), kind: "material", quantity: String(m.quantity), unitPriceMinor: m.unitPriceMinor });
   });
 
   const rushApplied = isRush(input.rush);
@@ -216,10 +264,19 @@ export function buildQuote(input: QuoteInput): Quote {
   }
 
   const subtotal = sum(lines);
-  // Tax is worked once on the whole, not per line, so lines never pick up separate roundings.
-  const tax = pricesIncludeTax
-    ? divideRounded(subtotal * taxRatePpm, PPM_WHOLE + taxRatePpm)
-    : divideRounded(subtotal * taxRatePpm, PPM_WHOLE);
+  // Tax is worked once per category on the sum of its lines (one category: once on the whole), so
+  // lines never pick up separate roundings. The discount is spread over the categories first.
+  const categories = getCategories(input, taxRatePpm);
+  assignCategories(lines, labourKeys, input, categories);
+  const groups = categories
+    .map((category) => {
+      const own = lines.filter((l) => l.taxCategory === category.id);
+      return { category, linesMinor: sum(own), discountableMinor: sum(own.filter((l) => l.kind !== "shipping")), used: own.length > 0 };
+    })
+    .filter((g) => g.used || (categories.length === 1 && g.category.id === "standard"));
+  const discountMinor = -sum(lines.filter((l) => l.kind === "discount"));
+  const taxByRate = computeTaxByRate(groups, discountMinor, pricesIncludeTax);
+  const tax = taxByRate.reduce((s, r) => s + BigInt(r.taxMinor), 0n);
   const total = pricesIncludeTax ? subtotal : subtotal + tax;
   const deposit = divideRounded(total * depositPpm, PPM_WHOLE);
 
@@ -234,9 +291,67 @@ export function buildQuote(input: QuoteInput): Quote {
     depositMinor: toSafeMinor(deposit, "deposit"),
     balanceMinor: toSafeMinor(total - deposit, "balance"),
     pricesIncludeTax,
-    taxRatePpm: Number(taxRatePpm),
+    taxRatePpm: categories.find((c) => c.id === "standard")?.ratePpm ?? Number(taxRatePpm),
     depositPpm: Number(depositPpm),
     labourPolicy,
     rushApplied,
+    taxByRate,
+    depositByRate: splitByRate(toSafeMinor(deposit, "deposit"), taxByRate),
   };
+}
+
+/** The categories in force: the studio's, or one standard category at taxRatePercent. */
+function getCategories(input: QuoteInput, taxRatePpm: bigint): TaxCategoryRate[] {
+  if (!input.taxCategories) return [{ id: "standard", label: "Tax", ratePpm: Number(taxRatePpm) }];
+  const resolved = resolveTaxCategories(input.taxCategories);
+  const standard = resolved.find((c) => c.id === "standard");
+  const standardInput = input.taxCategories.find((c) => c.id === "standard");
+  if (standard && standardInput?.ratePercent === undefined) standard.ratePpm = Number(taxRatePpm);
+  else if (standard && input.taxRatePercent !== undefined && BigInt(standard.ratePpm) !== taxRatePpm) {
+    throw new PricingInputError("taxRatePercent and the standard category's ratePercent differ; give one of them", "taxRatePercent");
+  }
+  // Always in the same order, so per-rate totals read the same on every document.
+  return [...resolved].sort((a, b) => TAX_CATEGORIES.indexOf(a.id) - TAX_CATEGORIES.indexOf(b.id));
+}
+
+function assignCategories(lines: QuoteLine[], labourKeys: Map<QuoteLine, string>, input: QuoteInput, categories: TaxCategoryRate[]): void {
+  const offered = new Set(categories.map((c) => c.id));
+  const check = (id: TaxCategory, field: string): TaxCategory => {
+    if (!offered.has(id)) {
+      const names = [...offered].join(", ");
+      throw new PricingInputError(`${field}: "${String(id)}" is not one of the tax categories in use (${names})`, field);
+    }
+    return id;
+  };
+  for (const [kind, id] of Object.entries(input.taxDefaults ?? {})) {
+    if (!(TAXABLE_KINDS as readonly string[]).includes(kind)) throw new PricingInputError(`taxDefaults.${kind}: not a kind of line (${TAXABLE_KINDS.join(", ")})`, `taxDefaults.${kind}`);
+    if (id !== undefined) check(id, `taxDefaults.${kind}`);
+  }
+  const byKind = (kind: TaxableKind): TaxCategory => input.taxDefaults?.[kind] ?? (offered.has("standard") || !input.taxCategories ? "standard" : check("standard", `taxDefaults.${kind}`));
+  // Materials and fees make one line each, in the order given.
+  let material = 0;
+  let fee = 0;
+  for (const line of lines) {
+    if (line.kind === "discount") continue;
+    if (!input.taxCategories) {
+      line.taxCategory = "standard";
+      continue;
+    }
+    if (line.kind === "labour") {
+      const key = labourKeys.get(line);
+      const own = key !== undefined ? input.labourTaxCategories?.[key] : undefined;
+      line.taxCategory = own !== undefined ? check(own, `labourTaxCategories.${key}`) : byKind("labour");
+    } else if (line.kind === "material") {
+      const i = material++;
+      const own = input.materials?.[i]?.taxCategory;
+      line.taxCategory = own !== undefined ? check(own, `materials[${i}].taxCategory`) : byKind("material");
+    } else if (line.kind === "fee") {
+      const i = fee++;
+      const own = input.fees?.[i]?.taxCategory;
+      line.taxCategory = own !== undefined ? check(own, `fees[${i}].taxCategory`) : byKind("fee");
+    } else {
+      line.taxCategory = byKind(line.kind);
+    }
+  }
+  for (const key of Object.keys(input.labourTaxCategories ?? {})) check(input.labourTaxCategories![key], `labourTaxCategories.${key}`);
 }

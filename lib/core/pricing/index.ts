@@ -21,3 +21,20 @@ export { diffQuotes, type QuoteDiff } from "./diff-quotes";
 export { explainChange, type PriceChangeExplanation } from "./explain-change";
 export { getRefundDue, defaultCancellationPolicy, CANCELLATION_STAGES, type CancellationPolicy, type CancellationRule } from "./cancellation";
 export { PricingInputError } from "./pricing-error";
+export {
+  TAX_CATEGORIES,
+  TAXABLE_KINDS,
+  TAX_RATE_WARNING_PERCENT,
+  DEFAULT_TAX_LABELS,
+  allocateLargestRemainder,
+  computeTaxByRate,
+  formatRatePpm,
+  getTaxRateWarnings,
+  resolveTaxCategories,
+  splitByRate,
+  type TaxCategory,
+  type TaxCategoryInput,
+  type TaxRateShare,
+  type TaxRateTotal,
+  type TaxableKind,
+} from "./tax";

@@ -1,6 +1,7 @@
 // Zod schemas for quote inputs, shared by the quote form, its server action and the core CLI.
 import { z } from "zod";
 import { isCurrencyCode } from "./currency";
+import { TAX_CATEGORIES, TAXABLE_KINDS } from "./tax";
 
 // Messages leave the field name out: describeIssues puts the path in front of each.
 const minor = () =>
@@ -28,6 +29,19 @@ export const stageMinutesSchema = z.union([wholeMinutes, z.looseObject({ p50Minu
   error: "give minutes as a whole number, or as { p50Minutes, p80Minutes } from an estimate",
 });
 
+const taxCategory = z.enum(TAX_CATEGORIES, { error: `must be one of ${TAX_CATEGORIES.join(", ")}` });
+
+export const taxCategoriesSchema = z.array(
+  z.strictObject({
+    id: taxCategory,
+    label: z.string().max(120).optional(),
+    ratePercent: z
+      .union([z.number().finite(), z.string()], { error: "must be a number" })
+      .refine((v) => Number(v) >= 0, { error: "must not be negative" })
+      .optional(),
+  }),
+);
+
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { error: "must be a date as YYYY-MM-DD" });
 
 export const quoteInputSchema = z.strictObject({
@@ -42,13 +56,14 @@ export const quoteInputSchema = z.strictObject({
         label: z.string().min(1, { error: "a material needs a label" }),
         quantity: z.union([z.number().finite().nonnegative({ error: "must not be negative" }), z.string()]),
         unitPriceMinor: minor(),
+        taxCategory: taxCategory.optional(),
       }),
     )
     .optional(),
   designFeeMinor: minor().optional(),
   rush: z.union([z.strictObject({ requestedDate: isoDate, earliestDate: isoDate }), z.strictObject({ requested: z.boolean() })]).optional(),
   rushFee: z.union([z.strictObject({ amountMinor: minor() }), z.strictObject({ percentOfLabour: percent(1000) })]).optional(),
-  fees: z.array(z.strictObject({ label: z.string().min(1, { error: "a fee needs a label" }), amountMinor: minor() })).optional(),
+  fees: z.array(z.strictObject({ label: z.string().min(1, { error: "a fee needs a label" }), amountMinor: minor(), taxCategory: taxCategory.optional() })).optional(),
   shippingMinor: minor().optional(),
   discount: z
     .union([
@@ -57,6 +72,9 @@ export const quoteInputSchema = z.strictObject({
     ])
     .optional(),
   taxRatePercent: percent().optional(),
+  taxCategories: taxCategoriesSchema.optional(),
+  taxDefaults: z.partialRecord(z.enum(TAXABLE_KINDS), taxCategory).optional(),
+  labourTaxCategories: z.record(z.string(), taxCategory).optional(),
   pricesIncludeTax: z.boolean({ error: "must be true or false" }).optional(),
   depositPercent: percent().optional(),
 });

@@ -32,7 +32,7 @@ describe("composeQuote", () => {
   test("builds lines from the estimate, the skeins, fees and shipping", () => {
     const { quote, estimate } = composeQuote(draft(), policy());
     expect(quote.lines.map((l) => l.kind)).toEqual(["labour", "labour", "labour", "labour", "labour", "design", "material", "fee", "shipping"]);
-    expect(quote.lines.find((l) => l.kind === "material")).toEqual({ label: "Yarn (skeins) × 2", amountMinor: 1700, kind: "material" });
+    expect(quote.lines.find((l) => l.kind === "material")).toMatchObject({ label: "Yarn (skeins) × 2", amountMinor: 1700, kind: "material" });
     expect(estimate.totals.p80Minutes).toBeGreaterThan(estimate.totals.p50Minutes);
   });
 

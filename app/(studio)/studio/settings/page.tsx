@@ -9,6 +9,8 @@ import { can } from "@/lib/server/authz";
 import { requireStudioMember } from "@/lib/server/page-guards";
 import { loadStudioSettings } from "@/lib/server/settings";
 import { SettingsForm } from "./settings-form";
+import { TaxSettingsForm } from "./tax-form";
+import { getTaxSettings } from "@/lib/server/tax-settings";
 
 export const metadata = { title: "Settings" };
 
@@ -33,6 +35,24 @@ export default async function SettingsPage() {
     <>
       <PageTitle title="Studio settings" lead="Your rates, tax and deposit. Quotes already sent keep the figures they were made with." />
       <SettingsForm currency={s.currency} defaults={values} rates={rates} />
+      <TaxSettingsForm defaults={taxFormValues(await getTaxSettings(actor, membership.studioId))} />
     </>
   );
+}
+
+function taxFormValues(t: Awaited<ReturnType<typeof getTaxSettings>>): Record<string, string> {
+  const cat = (id: string) => t.categories.find((c) => c.id === id);
+  return {
+    standardLabel: cat("standard")?.label ?? "Standard rate",
+    // The studio's tax rate is the standard rate (the Prices form above edits it too).
+    standardRate: String(t.standardRatePercent),
+    reducedLabel: cat("reduced")?.label ?? "",
+    reducedRate: cat("reduced") ? String(cat("reduced")!.ratePercent) : "",
+    zeroLabel: cat("zero")?.label ?? "",
+    exemptLabel: cat("exempt")?.label ?? "",
+    ...Object.fromEntries(Object.entries(t.defaults).map(([k, v]) => [`default_${k}`, v])),
+    legalName: t.seller.legalName,
+    address: t.seller.address,
+    taxNumber: t.seller.taxNumber,
+  };
 }

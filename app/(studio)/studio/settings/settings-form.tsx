@@ -8,6 +8,7 @@ import { errorsOf, useZodForm } from "@/components/auth/use-zod-form";
 import { idleState, type ActionState } from "@/lib/action-state";
 import { getGuardRailWarnings } from "@/lib/core/pricing/guard-rails";
 import { settingsFormSchema } from "@/lib/schemas/settings-form";
+import { taxRateWarning } from "@/lib/schemas/tax-settings";
 import { saveSettingsAction } from "./actions";
 
 const RATE_LABELS: Record<string, string> = {
@@ -63,7 +64,13 @@ export function SettingsForm({ currency, defaults, rates }: { currency: string; 
       </fieldset>
       <fieldset className="grid gap-4 sm:grid-cols-2">
         <legend className="mb-2 text-xl">Tax and deposit</legend>
-        <Field label="Tax rate (%)" inputMode="decimal" {...form.register("taxRatePercent")} errors={errs("taxRatePercent")} />
+        <Field
+          label="Tax rate (%)"
+          hint={taxRateWarning(String(form.watch("taxRatePercent") ?? "")) ?? "The standard rate; other categories are set below."}
+          inputMode="decimal"
+          {...form.register("taxRatePercent")}
+          errors={errs("taxRatePercent")}
+        />
         <div className="flex flex-col gap-1">
           <label htmlFor="pricesIncludeTax" className="font-semibold">
             Prices
