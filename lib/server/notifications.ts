@@ -180,8 +180,11 @@ async function queueMessageMail(tx: Tx, e: NotifyEvent, r: Recipient, s: { name:
     await tx.update(outboxMessages).set({ subject: mail.subject, html: mail.html, text: mail.text }).where(eq(outboxMessages.id, waiting.id));
     return;
   }
+  // The wait counts from the transaction's own now(), the created_at of the row, so the test above holds exactly.
+  const { rows } = await tx.execute<{ now: string | Date }>(sql`select now() as now`);
+  const notBefore = new Date(new Date(rows[0].now).getTime() + MESSAGE_BATCH_SECONDS * 1000);
   await enqueueMail(
-    { to: r.address, studioId: e.studioId, replyTo: e.replyTo, dedupeKey: `${prefix}${e.key}`, notBefore: new Date(Date.now() + MESSAGE_BATCH_SECONDS * 1000), ...mail },
+    { to: r.address, studioId: e.studioId, replyTo: e.replyTo, dedupeKey: `${prefix}${e.key}`, notBefore, ...mail },
     tx,
   );
 }
