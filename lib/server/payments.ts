@@ -510,7 +510,7 @@ async function markPaid(tx: Tx, p: Payment, info: { sessionId?: string | null; i
     await flag(tx, p.commissionId, "payment_out_of_state", { paymentId: p.id, state: c.state });
   }
   const parties = await getCommissionMailParties(tx, p.commissionId);
-  await notify(tx, { to: "studio", kind: "payment", studioId: p.studioId, commissionId: p.commissionId, key: `paid:${p.id}`, link: `/studio/commissions/${p.commissionId}#payments`,
+  await notify(tx, { to: "studio", kind: "payment", studioId: p.studioId, commissionId: p.commissionId, key: `paid:${p.id}`, link: `/studio/commissions/${p.commissionId}#quote-and-payments`,
     title: `${parties.clientName} paid the ${p.kind === "deposit" ? "deposit" : "balance"} for ${parties.title}`, body: `${money(p.amountMinor, p.currency)} received; the receipt has been sent to them.` });
   const receipt = await issueDocument(tx, { commissionId: p.commissionId, kind: "receipt", paymentId: p.id, receivedMinor: p.amountMinor, receivedFor: p.kind });
   await enqueueDocumentMail(tx, receipt, parties);

@@ -361,7 +361,7 @@ export async function acceptQuote(actor: Actor, input: { quoteId: string; name: 
       .returning();
     if (!accepted) throw conflict("This quote has just been answered; reload the page.");
     await moveCommission(actor, c.id, "accept_quote", { tx, detail: { quoteVersion: v.number, acceptedName: input.name } });
-    await notify(tx, { to: "studio", kind: "quote_accepted", studioId: c.studioId, commissionId: c.id, key: `quote-accepted:${v.id}`, actorUserId: actor.userId, replyTo: actor.email, link: `/studio/commissions/${c.id}#quote`,
+    await notify(tx, { to: "studio", kind: "quote_accepted", studioId: c.studioId, commissionId: c.id, key: `quote-accepted:${v.id}`, actorUserId: actor.userId, replyTo: actor.email, link: `/studio/commissions/${c.id}#quote-and-payments`,
       title: `${actor.name} accepted the quote for ${c.title}`, body: `Quote version ${v.number} was accepted, signed "${input.name}". The deposit can now be paid.` });
     await reserveYarn(tx, c.id, storedInputOf(v).draft);
     const payment = await openDepositPayment(tx, accepted);
@@ -374,7 +374,7 @@ export async function requestQuoteChanges(actor: Actor, input: { quoteId: string
     const { c, v } = await lockForAnswer(tx, actor, input.quoteId);
     await tx.update(quoteVersions).set({ status: "changes_requested", changeRequest: input.changes }).where(eq(quoteVersions.id, v.id));
     await moveCommission(actor, c.id, "revise_quote", { tx, reason: input.changes, detail: { quoteVersion: v.number } });
-    await notify(tx, { to: "studio", kind: "quote_changes", studioId: c.studioId, commissionId: c.id, key: `quote-changes:${v.id}`, actorUserId: actor.userId, replyTo: actor.email, link: `/studio/commissions/${c.id}#quote`,
+    await notify(tx, { to: "studio", kind: "quote_changes", studioId: c.studioId, commissionId: c.id, key: `quote-changes:${v.id}`, actorUserId: actor.userId, replyTo: actor.email, link: `/studio/commissions/${c.id}#quote-and-payments`,
       title: `${actor.name} asked for changes to the quote for ${c.title}`, body: input.changes.length > 300 ? `${input.changes.slice(0, 300)}…` : input.changes });
     return { quoteId: v.id };
   });

@@ -95,11 +95,11 @@ describe("notifications", () => {
       expect(await accepted.count()).toBe(1);
       expect(await paid.count()).toBe(1);
       await accepted.click();
-      await page.waitForURL(new RegExp(`/studio/commissions/${id}#quote$`));
+      await page.waitForURL(new RegExp(`/studio/commissions/${id}#quote-and-payments$`));
       expect(await unread(page)).toBe(before + 1);
       await page.goto("/studio/notifications");
       await paid.click();
-      await page.waitForURL(new RegExp(`/studio/commissions/${id}#payments$`));
+      await page.waitForURL(new RegExp(`/studio/commissions/${id}#quote-and-payments$`));
       expect(await unread(page)).toBe(before);
     });
 

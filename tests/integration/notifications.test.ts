@@ -68,9 +68,9 @@ describe("notifications", { timeout: 90_000 }, () => {
     expect(item.title).toMatch(/accepted the quote for Test mittens/);
     expect(item.read).toBe(false);
     const mail = await waitForMail(studioMail, (m) => m.subject.includes("accepted the quote"));
-    expect(mail.text).toContain(`/studio/commissions/${w.commissionA}#quote`);
+    expect(mail.text).toContain(`/studio/commissions/${w.commissionA}#quote-and-payments`);
 
-    expect(await openNotification(owner, "studio", item.id)).toBe(`/studio/commissions/${w.commissionA}#quote`);
+    expect(await openNotification(owner, "studio", item.id)).toBe(`/studio/commissions/${w.commissionA}#quote-and-payments`);
     expect(await unreadNotificationCount(owner, "studio")).toBe(0);
     // the client was told of the quote in their own list
     const clientList = await listNotifications(await w.actor(w.clientA.id), "client");
@@ -93,7 +93,7 @@ describe("notifications", { timeout: 90_000 }, () => {
     const paid = await db.select().from(notifications).where(and(eq(notifications.recipientUserId, w.owner.id), eq(notifications.kind, "payment")));
     expect(paid).toHaveLength(1);
     expect(paid[0].title).toMatch(/paid the deposit/);
-    expect(paid[0].link).toBe(`/studio/commissions/${w.commissionA}#payments`);
+    expect(paid[0].link).toBe(`/studio/commissions/${w.commissionA}#quote-and-payments`);
     expect(await outboxRows(`notify:paid:${paymentId}:%`)).toHaveLength(1);
     await waitForMail(studioMail, (m) => /paid the deposit/.test(m.subject));
   });
