@@ -11,11 +11,12 @@ export async function NotificationLinks({ actor }: { actor: Actor }) {
   const client = actor.clientOf.length > 0 || !studio;
   const [s, c] = await Promise.all([studio ? unreadNotificationCount(actor, "studio") : 0, client ? unreadNotificationCount(actor, "client") : 0]);
   const link = (href: string, word: string, n: number, testId: string) => (
-    <Link href={href} aria-label={`${word}, ${n} unread`} data-testid={testId} className="inline-flex items-center gap-1">
+    // The name is read from the content ("Notifications, 3 unread"), so it always contains the visible words.
+    <Link href={href} data-testid={testId} className="inline-flex items-center gap-1">
       {word}
-      <span aria-hidden="true" className={`rounded-full px-2 text-sm font-semibold ${n > 0 ? "bg-madder text-white" : "bg-bark/15 text-peat"}`}>
-        {n}
-      </span>
+      <span className="sr-only">, </span>
+      <span className={`rounded-full px-2 text-sm font-semibold ${n > 0 ? "bg-madder text-white" : "bg-bark/15 text-peat"}`}>{n}</span>
+      <span className="sr-only"> unread</span>
     </Link>
   );
   return (

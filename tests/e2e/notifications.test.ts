@@ -34,9 +34,9 @@ async function signInTo(page: Page, email: string) {
   await page.waitForLoadState("networkidle");
 }
 
-/** The number in the header link's accessible name ("Notifications, 3 unread"). */
+/** The number in the header link's name ("Notifications, 3 unread", read from its text). */
 async function unread(page: Page): Promise<number> {
-  const label = await page.getByTestId("studio-notifications").getAttribute("aria-label");
+  const label = (await page.getByTestId("studio-notifications").textContent())?.trim();
   const m = /^(?:Studio )?[Nn]otifications, (\d+) unread$/.exec(label ?? "");
   if (!m) throw new Error(`unexpected header label: ${label}`);
   return Number(m[1]);
