@@ -1,5 +1,6 @@
 import Link from "next/link";
 import { signOut } from "@/app/(auth)/actions";
+import { NotificationLinks } from "@/components/notifications/header-link";
 import { getActor } from "@/lib/server/authz";
 
 export async function SiteHeader() {
@@ -15,6 +16,7 @@ export async function SiteHeader() {
             <>
               {actor.memberships.length > 0 ? <Link href="/studio">Studio</Link> : null}
               {actor.clientOf.length > 0 || actor.memberships.length === 0 ? <Link href="/portal">My commissions</Link> : null}
+              <NotificationLinks actor={actor} />
               <span className="text-bark" data-testid="signed-in-as">
                 {actor.name}
               </span>

@@ -8,3 +8,4 @@ export * from "./journey";
 export * from "./payments";
 export * from "./production";
 export * from "./limits";
+export * from "./notifications";

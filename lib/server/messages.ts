@@ -3,13 +3,11 @@ import "server-only";
 // sender's own key, so a retry after a lost answer is stored once; reading marks the thread read.
 import { and, asc, count, eq, inArray, isNull, sql } from "drizzle-orm";
 import { db } from "@/db";
-import { commissions, messageReads, messages, studioClients, studios, uploads, user } from "@/db/schema";
-import { env } from "@/lib/env";
+import { commissions, messageReads, messages, studios, uploads, user } from "@/db/schema";
 import type { PostMessageInput, Thread, ThreadMessage } from "@/lib/schemas/messages";
-import { newMessageMessage } from "@/templates/email/journey";
 import type { Actor } from "./authz";
 import { notFound } from "./errors";
-import { enqueueMail } from "./outbox";
+import { notify } from "./notifications";
 import { getCommissionFor } from "./queries/commissions";
 import { roleOn } from "./workflow";
 
@@ -81,7 +79,7 @@ export async function unreadCount(actor: Actor, commissionId: string): Promise<n
 }
 
 export async function postMessage(actor: Actor, commissionId: string, input: PostMessageInput): Promise<{ id: string; created: boolean }> {
-  const { c, role, clientId } = await participant(actor, commissionId);
+  const { c, role } = await participant(actor, commissionId);
   return db.transaction(async (tx) => {
     const [made] = await tx
       .insert(messages)
@@ -99,20 +97,13 @@ export async function postMessage(actor: Actor, commissionId: string, input: Pos
         .where(and(inArray(uploads.id, input.uploadIds), eq(uploads.commissionId, c.id), eq(uploads.uploadedBy, actor.userId), isNull(uploads.messageId)));
     }
     const [s] = await tx.select().from(studios).where(eq(studios.id, c.studioId));
-    const base = env.BETTER_AUTH_URL;
     const excerpt = input.body ? (input.body.length > 300 ? `${input.body.slice(0, 300)}…` : input.body) : "(a photo)";
-    if (role === "client") {
-      await enqueueMail(
-        { to: s.contactEmail, studioId: s.id, replyTo: actor.email, dedupeKey: `message:${made.id}`, ...newMessageMessage(s, { fromName: c.clientName, title: c.title, excerpt, url: `${base}/studio/commissions/${c.id}#messages` }) },
-        tx,
-      );
-    } else {
-      const [to] = await tx.select({ email: user.email }).from(studioClients).innerJoin(user, eq(user.id, studioClients.userId)).where(eq(studioClients.id, clientId));
-      await enqueueMail(
-        { to: to.email, studioId: s.id, replyTo: s.contactEmail, dedupeKey: `message:${made.id}`, ...newMessageMessage(s, { fromName: s.name, title: c.title, excerpt, url: `${base}/portal/commissions/${c.id}#messages` }) },
-        tx,
-      );
-    }
+    const who = role === "client" ? c.clientName : s.name;
+    await notify(tx, {
+      ...(role === "client" ? ({ to: "studio", kind: "client_message" } as const) : ({ to: "client", kind: "studio_message" } as const)),
+      studioId: s.id, commissionId: c.id, key: `message:${made.id}`, actorUserId: actor.userId, replyTo: role === "client" ? actor.email : s.contactEmail,
+      link: `/${role === "client" ? "studio" : "portal"}/commissions/${c.id}#messages`, title: `New message from ${who} about ${c.title}`, body: excerpt,
+    });
     await tx
       .insert(messageReads)
       .values({ userId: actor.userId, commissionId: c.id, lastReadAt: new Date() })

@@ -24,6 +24,8 @@ export interface QueuedMail {
   /** the same key is queued only once */
   dedupeKey?: string;
   attachments?: MailAttachment[];
+  /** not sent before this time (a batch of messages waits for the rest of its window) */
+  notBefore?: Date;
 }
 
 /**
@@ -44,6 +46,7 @@ export async function enqueueMail(mail: QueuedMail, tx: Executor = db): Promise<
       studioId: mail.studioId ?? null,
       dedupeKey: mail.dedupeKey,
       attachments: mail.attachments ?? [],
+      ...(mail.notBefore ? { nextAttemptAt: mail.notBefore } : {}),
     })
     .onConflictDoNothing({ target: outboxMessages.dedupeKey });
 }

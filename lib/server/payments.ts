@@ -40,6 +40,7 @@ import { InvoiceDocument } from "@/templates/pdf/invoice";
 import { assertCan, can, type Actor } from "./authz";
 import { AppError, conflict, notFound, nullIfNotFound } from "./errors";
 import { assertStoredDigits, providerAmountOrThrow } from "./money-guard";
+import { notify } from "./notifications";
 import { enqueueMail } from "./outbox";
 import { renderPdf } from "./pdf";
 import { getCommissionFor, getCommissionMailParties } from "./queries/commissions";
@@ -572,6 +573,8 @@ async function markPaid(tx: Tx, p: Payment, info: { sessionId?: string | null; i
     await flag(tx, p.commissionId, "payment_out_of_state", { paymentId: p.id, state: c.state });
   }
   const parties = await getCommissionMailParties(tx, p.commissionId);
+  await notify(tx, { to: "studio", kind: "payment", studioId: p.studioId, commissionId: p.commissionId, key: `paid:${p.id}`, link: `/studio/commissions/${p.commissionId}#quote-and-payments`,
+    title: `${parties.clientName} paid the ${p.kind === "deposit" ? "deposit" : "balance"} for ${parties.title}`, body: `${money(p.amountMinor, p.currency)} received; the receipt has been sent to them.` });
   const receipt = await issueDocument(tx, { commissionId: p.commissionId, kind: "receipt", paymentId: p.id, receivedMinor: p.amountMinor, receivedFor: p.kind });
   await enqueueDocumentMail(tx, receipt, parties);
   return { paid: p.id, moved: check.ok ? move : null, receipt: receipt.id };

@@ -15,7 +15,7 @@ import { requestClientAddress } from "./client-address";
 import { assertCan, memberRole, type Actor } from "./authz";
 import { renderPreviewPng } from "./chart-png";
 import { AppError, conflict, notFound, nullIfNotFound } from "./errors";
-import { enqueueMail } from "./outbox";
+import { notify } from "./notifications";
 import { getCommissionFor, getCommissionMailParties } from "./queries/commissions";
 import { moveCommission } from "./workflow";
 
@@ -93,17 +93,11 @@ export async function sendProof(actor: Actor, commissionId: string, note: string
     const who = await getCommissionMailParties(tx, c.id);
     const [s] = await tx.select().from(studios).where(eq(studios.id, c.studioId));
     const attachments = pictures.map((pic) => ({ filename: `proof-${number}-${pic.name}`, contentType: "image/png", base64: pic.base64 }));
-    await enqueueMail(
-      {
-        to: who.clientEmail,
-        studioId: c.studioId,
-        replyTo: s.contactEmail,
-        dedupeKey: `proof-sent:${p.id}`,
-        attachments,
-        ...proofReadyMessage(s, { clientName: who.clientName, number, title: c.title, note, url: `${env.BETTER_AUTH_URL}/portal/commissions/${c.id}/proofs/${p.id}` }),
-      },
-      tx,
-    );
+    await notify(tx, {
+      to: "client", kind: "proof_sent", studioId: c.studioId, commissionId: c.id, key: `proof-sent:${p.id}`, actorUserId: actor.userId, link: `/portal/commissions/${c.id}/proofs/${p.id}`,
+      title: `${s.name} sent proof ${number} of ${c.title} for you to check`, body: note || "Approve it when it is right, or ask for changes on the stitches you mean.",
+      mail: { replyTo: s.contactEmail, dedupeKey: `proof-sent:${p.id}`, attachments, ...proofReadyMessage(s, { clientName: who.clientName, number, title: c.title, note, url: `${env.BETTER_AUTH_URL}/portal/commissions/${c.id}/proofs/${p.id}` }) },
+    });
     return p;
   });
   return out;
@@ -151,16 +145,11 @@ export async function approveProof(actor: Actor, proofId: string, seenHash: stri
     const [v] = await tx.select({ designId: designVersions.designId }).from(designVersions).where(eq(designVersions.id, cur.designVersionId));
     await tx.update(designs).set({ lockedVersionId: cur.designVersionId, updatedAt: new Date() }).where(eq(designs.id, v.designId));
     const [s] = await tx.select().from(studios).where(eq(studios.id, c.studioId));
-    await enqueueMail(
-      {
-        to: s.contactEmail,
-        studioId: s.id,
-        replyTo: actor.email,
-        dedupeKey: `proof-approved:${cur.id}`,
-        ...proofAnsweredMessage(s, { clientName: c.clientName, proofNumber: cur.number, title: c.title, approved: true, note: "", pinned: 0, url: `${env.BETTER_AUTH_URL}/studio/commissions/${c.id}` }),
-      },
-      tx,
-    );
+    await notify(tx, {
+      to: "studio", kind: "proof_approved", studioId: s.id, commissionId: c.id, key: `proof-approved:${cur.id}`, actorUserId: actor.userId, link: `/studio/commissions/${c.id}/proofs/${cur.id}`,
+      title: `${c.clientName} approved proof ${cur.number} of ${c.title}`, body: "The chart is locked at this version; the piece can go into production.",
+      mail: { replyTo: actor.email, dedupeKey: `proof-approved:${cur.id}`, ...proofAnsweredMessage(s, { clientName: c.clientName, proofNumber: cur.number, title: c.title, approved: true, note: "", pinned: 0, url: `${env.BETTER_AUTH_URL}/studio/commissions/${c.id}` }) },
+    });
     return done;
   });
 }
@@ -193,16 +182,12 @@ export async function requestProofChanges(
     }
     if (input.note) await tx.insert(proofComments).values({ proofId: cur.id, authorUserId: actor.userId, body: input.note });
     const [s] = await tx.select().from(studios).where(eq(studios.id, c.studioId));
-    await enqueueMail(
-      {
-        to: s.contactEmail,
-        studioId: s.id,
-        replyTo: actor.email,
-        dedupeKey: `proof-changes:${cur.id}`,
-        ...proofAnsweredMessage(s, { clientName: c.clientName, proofNumber: cur.number, title: c.title, approved: false, note: input.note, pinned: input.comments.length, url: `${env.BETTER_AUTH_URL}/studio/commissions/${c.id}` }),
-      },
-      tx,
-    );
+    await notify(tx, {
+      to: "studio", kind: "proof_changes", studioId: s.id, commissionId: c.id, key: `proof-changes:${cur.id}`, actorUserId: actor.userId, link: `/studio/commissions/${c.id}/proofs/${cur.id}`,
+      title: `${c.clientName} asked for changes to proof ${cur.number} of ${c.title}`,
+      body: [input.note, input.comments.length ? `${input.comments.length} comment${input.comments.length === 1 ? "" : "s"} pinned to stitches.` : ""].filter(Boolean).join(" ").slice(0, 400) || "Open the proof to see what they asked.",
+      mail: { replyTo: actor.email, dedupeKey: `proof-changes:${cur.id}`, ...proofAnsweredMessage(s, { clientName: c.clientName, proofNumber: cur.number, title: c.title, approved: false, note: input.note, pinned: input.comments.length, url: `${env.BETTER_AUTH_URL}/studio/commissions/${c.id}` }) },
+    });
     return { id: cur.id };
   });
 }

@@ -19,8 +19,8 @@ import { quoteSentMessage } from "@/templates/email/money";
 import { assertCan, can, type Actor } from "./authz";
 import { AppError, conflict, notFound, nullIfNotFound } from "./errors";
 import { assertStoredDigits } from "./money-guard";
-import { enqueueMail } from "./outbox";
 import { labourLevelNote } from "@/lib/core/pricing/labour-level";
+import { notify } from "./notifications";
 import { renderPdf } from "./pdf";
 import { getCommissionFor, getCommissionMailParties } from "./queries/commissions";
 import { loadStudioSettings } from "./settings";
@@ -332,17 +332,12 @@ async function enqueueQuoteMail(tx: Tx, v: QuoteVersion) {
     message: v.messageToClient,
     accentHex: row.brandHex,
   });
-  await enqueueMail(
-    {
-      to: row.clientEmail,
-      ...mail,
-      studioId: v.studioId,
-      dedupeKey: `quote-sent-${v.id}`,
-      // The PDF is rendered by the outbox worker when it sends, never inside this transaction.
-      attachments: [{ filename: `quote-${row.number}-${v.number}.pdf`, contentType: "application/pdf", render: `quote:${v.id}` }],
-    },
-    tx,
-  );
+  await notify(tx, {
+    to: "client", kind: "quote_sent", studioId: v.studioId, commissionId: v.commissionId, key: `quote-sent:${v.id}`, link: `/portal/commissions/${v.commissionId}#quote`,
+    title: `${row.studioName} sent you a quote for ${row.title}`, body: `Total ${formatMoney(q.totalMinor, q.currency)}; read it and accept it, or ask for changes.`,
+    // The PDF is rendered by the outbox worker when it sends, never inside this transaction.
+    mail: { ...mail, dedupeKey: `quote-sent-${v.id}`, attachments: [{ filename: `quote-${row.number}-${v.number}.pdf`, contentType: "application/pdf", render: `quote:${v.id}` }] },
+  });
 }
 
 // --- the client's answer ------------------------------------------------------------------------
@@ -397,6 +392,8 @@ export async function acceptQuote(actor: Actor, input: { quoteId: string; name: 
       .returning();
     if (!accepted) throw conflict("This quote has just been answered; reload the page.");
     await moveCommission(actor, c.id, "accept_quote", { tx, detail: { quoteVersion: v.number, acceptedName: input.name } });
+    await notify(tx, { to: "studio", kind: "quote_accepted", studioId: c.studioId, commissionId: c.id, key: `quote-accepted:${v.id}`, actorUserId: actor.userId, replyTo: actor.email, link: `/studio/commissions/${c.id}#quote-and-payments`,
+      title: `${actor.name} accepted the quote for ${c.title}`, body: `Quote version ${v.number} was accepted, signed "${input.name}". The deposit can now be paid.` });
     await reserveYarn(tx, c.id, storedInputOf(v).draft);
     const payment = await openDepositPayment(tx, accepted);
     return { quote: accepted, paymentId: payment?.id ?? null };
@@ -408,6 +405,8 @@ export async function requestQuoteChanges(actor: Actor, input: { quoteId: string
     const { c, v } = await lockForAnswer(tx, actor, input.quoteId);
     await tx.update(quoteVersions).set({ status: "changes_requested", changeRequest: input.changes }).where(eq(quoteVersions.id, v.id));
     await moveCommission(actor, c.id, "revise_quote", { tx, reason: input.changes, detail: { quoteVersion: v.number } });
+    await notify(tx, { to: "studio", kind: "quote_changes", studioId: c.studioId, commissionId: c.id, key: `quote-changes:${v.id}`, actorUserId: actor.userId, replyTo: actor.email, link: `/studio/commissions/${c.id}#quote-and-payments`,
+      title: `${actor.name} asked for changes to the quote for ${c.title}`, body: input.changes.length > 300 ? `${input.changes.slice(0, 300)}…` : input.changes });
     return { quoteId: v.id };
   });
 }

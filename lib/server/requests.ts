@@ -13,6 +13,7 @@ import { MAX_REFERENCE_PHOTOS, requestDraftSchema, requestSchema, type RequestDr
 import { requestToClientMessage, requestToStudioMessage } from "@/templates/email/journey";
 import type { Actor } from "./authz";
 import { AppError, validationError } from "./errors";
+import { notify } from "./notifications";
 import { enqueueMail } from "./outbox";
 
 export const draftCookieName = (slug: string) => `dw-request-${slug}`;
@@ -162,16 +163,11 @@ export async function createCommissionFromRequest(
     if (opts.draftId) await tx.delete(requestDrafts).where(eq(requestDrafts.id, opts.draftId));
 
     const base = env.BETTER_AUTH_URL;
-    await enqueueMail(
-      {
-        to: s.contactEmail,
-        studioId: s.id,
-        dedupeKey: `request-studio:${c.id}`,
-        replyTo: actor.email,
-        ...requestToStudioMessage(s, { clientName: client.displayName, number, title, url: `${base}/studio/commissions/${c.id}` }),
-      },
-      tx,
-    );
+    await notify(tx, {
+      to: "studio", kind: "request", studioId: s.id, commissionId: c.id, key: `request:${c.id}`, actorUserId: actor.userId, link: `/studio/commissions/${c.id}`,
+      title: `New request from ${client.displayName}: ${title}`, body: `Request no. ${number}. Read the brief and start a quote.`,
+      mail: { replyTo: actor.email, dedupeKey: `request-studio:${c.id}`, ...requestToStudioMessage(s, { clientName: client.displayName, number, title, url: `${base}/studio/commissions/${c.id}` }) },
+    });
     await enqueueMail(
       {
         to: actor.email,

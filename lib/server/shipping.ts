@@ -9,7 +9,7 @@ import { CareCardDocument } from "@/templates/pdf/care-card";
 import { shippedMessage } from "@/templates/email/production";
 import { assertCan, memberRole, type Actor } from "./authz";
 import { notFound } from "./errors";
-import { enqueueMail } from "./outbox";
+import { notify } from "./notifications";
 import { renderPdf } from "./pdf";
 import { getCommissionFor, getCommissionMailParties } from "./queries/commissions";
 import { moveCommission } from "./workflow";
@@ -37,7 +37,8 @@ export async function shipCommission(actor: Actor, input: { commissionId: string
       careCardUrl: `${base}/api/commissions/${c.id}/care-card`,
       accentHex: who.brandHex,
     });
-    await enqueueMail({ to: who.clientEmail, ...mail, replyTo: who.contactEmail, studioId: c.studioId, dedupeKey: `shipped:${shipment.id}` }, tx);
+    await notify(tx, { to: "client", kind: "shipped", studioId: c.studioId, commissionId: c.id, key: `shipped:${shipment.id}`, actorUserId: actor.userId, link: `/portal/commissions/${c.id}`,
+      title: `${who.studioName} posted ${c.title}`, body: `Sent with ${input.carrier}, tracking ${input.tracking}.`, mail: { ...mail, replyTo: who.contactEmail, dedupeKey: `shipped:${shipment.id}` } });
     return { outcome, shipment };
   });
 }

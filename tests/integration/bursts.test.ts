@@ -281,7 +281,9 @@ describe("bursts", { timeout: 60_000 }, () => {
     expect(await db.select().from(webhookEvents).where(inArray(webhookEvents.id, payloads.map((p) => (JSON.parse(p) as { id: string }).id)))).toHaveLength(50);
     const states = await db.select({ s: commissions.state }).from(commissions).where(inArray(commissions.id, ids));
     expect(states.every((r) => r.s === "booked")).toBe(true);
-    expect(await forgetMail().returning({ id: outboxMessages.id })).toHaveLength(50); // one receipt mail each
+    const mails = await forgetMail().returning({ key: outboxMessages.dedupeKey });
+    expect(mails.filter((m) => m.key?.startsWith("document-"))).toHaveLength(50); // one receipt mail each
+    expect(mails.filter((m) => m.key?.startsWith("notify:paid:"))).toHaveLength(50); // and the studio told once of each
 
     // 20 of them ready at once: 20 balance invoices in parallel, numbered 1…20.
     const ready = ids.slice(0, 20);

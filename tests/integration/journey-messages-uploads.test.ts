@@ -1,11 +1,11 @@
-import { eq } from "drizzle-orm";
+import { eq, like } from "drizzle-orm";
 import sharp from "sharp";
 import { beforeAll, describe, expect, test } from "vitest";
 import { GET as getThread, POST as postMessage } from "@/app/api/commissions/[id]/messages/route";
 import { POST as upload } from "@/app/api/commissions/[id]/uploads/route";
 import { GET as download } from "@/app/api/uploads/[id]/route";
 import { db } from "@/db";
-import { messages, uploads } from "@/db/schema";
+import { messages, outboxMessages, uploads } from "@/db/schema";
 import type { Thread } from "@/lib/schemas/messages";
 import { unreadCount } from "@/lib/server/messages";
 import { getObject } from "@/lib/server/storage";
@@ -119,6 +119,8 @@ describe("messages", () => {
     expect(thread.unread).toBeGreaterThanOrEqual(1);
     expect(await unreadCount(clientA, w.commissionA)).toBe(0);
 
+    // Message mails wait a few minutes to gather the next ones (notifications.ts); let the window pass.
+    await db.update(outboxMessages).set({ nextAttemptAt: new Date() }).where(like(outboxMessages.dedupeKey, `messages:${w.commissionA}:%`));
     const mail = await waitForMail(w.clientA.email, (m) => m.subject.includes("New message"));
     expect(mail.links.some((l) => l.includes(`/portal/commissions/${w.commissionA}#messages`))).toBe(true);
 

@@ -11,6 +11,8 @@ import { loadStudioSettings } from "@/lib/server/settings";
 import { SettingsForm } from "./settings-form";
 import { TaxSettingsForm } from "./tax-form";
 import { getTaxSettings } from "@/lib/server/tax-settings";
+import { NotificationSettingsForm } from "@/components/notifications/forms";
+import { getNotificationSettings } from "@/lib/server/notifications";
 
 export const metadata = { title: "Settings" };
 
@@ -36,6 +38,10 @@ export default async function SettingsPage() {
       <PageTitle title="Studio settings" lead="Your rates, tax and deposit. Quotes already sent keep the figures they were made with." />
       <SettingsForm currency={s.currency} defaults={values} rates={rates} />
       <TaxSettingsForm defaults={taxFormValues(await getTaxSettings(actor, membership.studioId))} />
+      <section id="notifications" aria-labelledby="notifications-heading" className="mt-10">
+        <h2 id="notifications-heading" className="mb-3 text-xl">Notifications by e-mail</h2>
+        <NotificationSettingsForm audience="studio" kinds={await getNotificationSettings(actor, "studio")} />
+      </section>
     </>
   );
 }
