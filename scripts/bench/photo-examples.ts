@@ -188,6 +188,8 @@ async function main(): Promise<void> {
   for (const e of EXAMPLES) {
     const jpeg = await photograph(e);
     writeFileSync(path.join(OUT, `${e.name}-photo.jpg`), jpeg);
+    // the same photo as PNG, smaller, for viewers that show PNG only
+    await sharp(jpeg).resize({ width: 600 }).png().toFile(path.join(OUT, `${e.name}-photo.png`));
     const image: RgbaImage = await decodePhoto(jpeg);
     const crop = cropForGauge(image, e.target);
     const runs = [

@@ -3,8 +3,8 @@
 // round, every other stitch darned afterwards) is made for the chart; small groups of darned
 // stitches (specks of a third or fourth colour that blur or noise left in a round) are each folded
 // into the nearer (CIEDE2000) of the pair held in their round. Larger darned groups are kept: they
-// are the picture. The plan is made again and a fold that would raise the darned stitches, the
-// ends or the minutes is not kept, so the cost never rises. Pure and deterministic.
+// are the picture. The plan is made again; folds that together would raise the darned stitches,
+// the ends or the minutes are tried again in halves, so the cost never rises. Pure and deterministic.
 import { getColourDifference } from "../colourwork/ciede2000";
 import type { DarningRates } from "../colourwork/darning-rates";
 import { planRoundPairs, type RoundPairsPlan } from "../colourwork/round-pairs";

@@ -81,6 +81,26 @@ describe("limitRoundColours", () => {
     expect(fold.after.roundsOverTwo).toBe(0);
   });
 
+  test("a speck whose fold would cost more is kept (it joins two strands of a darned area)", () => {
+    const g = ground(24, 10);
+    // two red blocks 9 stitches apart (beyond the 2.5 cm carry at 32 sts per 10 cm), one strand
+    // through the red stitch between them
+    for (let r = 4; r < 6; r++) for (let x = 0; x < 4; x++) g[r][x] = "C";
+    for (let r = 4; r < 6; r++) for (let x = 12; x < 16; x++) g[r][x] = "C";
+    g[4][8] = "C";
+    const rows = g.map((r) => r.join(""));
+    const out = limitRoundColours(doc(rows), { maxStitches: 2 });
+    expect(out.changed).toEqual([]);
+    expect(out.chart.rows).toEqual(rows);
+    expect(out.groups).toEqual({ folded: 0, kept: 2, keptDearer: 1 });
+    expect(out.after).toEqual(out.before);
+    // with a second speck elsewhere the two are judged together: kept together when the total falls
+    g[0][20] = "D";
+    const both = limitRoundColours(doc(g.map((r) => r.join(""))), { maxStitches: 2 });
+    expect(both.after.ends).toBeLessThanOrEqual(both.before.ends);
+    expect(both.after.minutes).toBeLessThan(both.before.minutes);
+  });
+
   test("a chart already within two colours per round is unchanged", () => {
     const g = ground(20, 12);
     // a third colour in rounds of its own with one other: the round pair knits it, nothing darned
