@@ -12,7 +12,7 @@ import { MAX_PALETTE } from "@/lib/core/chart/model";
 import { getColourDifference } from "@/lib/core/colourwork/ciede2000";
 import type { ColourPlan } from "@/lib/core/colourwork/colour-plan";
 import type { DarningPlan } from "@/lib/core/colourwork/darning-plan";
-import type { PhotoToChartOptions } from "@/lib/core/photo";
+import { DEFAULT_MAX_SPECK_STITCHES, MAX_SPECK_STITCHES, type PhotoToChartOptions } from "@/lib/core/photo";
 import { formatMoney } from "@/lib/core/pricing/format-money";
 import { livePrice, type ChartPiece } from "@/lib/core/pricing/live-price";
 import type { ChartArea, SizingResult } from "@/lib/core/sizing";
@@ -20,7 +20,7 @@ import type { LivePricing } from "../chart-editor/garment-reading";
 import { boxFromDrag, centredBox, trueAspect, workingSize, type Box, type GaugeLike } from "./crop-box";
 import { CropView } from "./crop-view";
 import { cropPixels, decodePhoto, PhotoError, type WorkingImage } from "./decode";
-import { runPhotoJob, type PhotoJob, type PhotoJobAnswer } from "./photo-job";
+import { runPhotoJob, type PhotoJob, type PhotoJobAnswer, type RoundsCleanup } from "./photo-job";
 
 export interface PhotoChoice {
   id: string;
@@ -102,6 +102,8 @@ export function PhotoImport(props: PhotoImportProps) {
   const [chosenYarns, setChosenYarns] = useState<string[]>([]);
   const [count, setCount] = useState("3");
   const [cleanup, setCleanup] = useState(true);
+  const [limitRounds, setLimitRounds] = useState(false);
+  const [speck, setSpeck] = useState("3");
   const [errors, setErrors] = useState<Errors>({});
   const [working, setWorking] = useState(false);
   const [answer, setAnswer] = useState<Extract<PhotoJobAnswer, { ok: true }> | null>(null);
@@ -286,6 +288,7 @@ export function PhotoImport(props: PhotoImportProps) {
       image: pixels,
       options,
       shape,
+      limitRounds: limitRounds ? { maxStitches: Math.max(1, Math.min(MAX_SPECK_STITCHES, Math.round(Number(speck)) || DEFAULT_MAX_SPECK_STITCHES)), inTheRound: props.inTheRound } : null,
       garment: g ? { sizing: g.sizing, charts: g.charts, index: target.index, pricing: g.pricing } : null,
     });
     if (seq !== jobSeq.current) return; // cancelled or superseded
@@ -533,6 +536,22 @@ export function PhotoImport(props: PhotoImportProps) {
                     <label className="mt-3 flex items-center gap-2 text-sm">
                       <input type="checkbox" checked={cleanup} onChange={(e) => setCleanup(e.target.checked)} /> Clean up: remove single stray stitches
                     </label>
+                    <div className="mt-1 flex flex-wrap items-center gap-2 text-sm">
+                      <label className="flex items-center gap-2">
+                        <input type="checkbox" checked={limitRounds} onChange={(e) => setLimitRounds(e.target.checked)} data-testid="photo-import-limit-rounds" /> Two knitted colours per round: fold specks of other colours of up to
+                      </label>
+                      <input
+                        className="w-16 rounded-md border border-bark/40 px-2 py-0.5"
+                        type="number"
+                        min={1}
+                        max={MAX_SPECK_STITCHES}
+                        value={speck}
+                        onChange={(e) => setSpeck(e.target.value)}
+                        disabled={!limitRounds}
+                        aria-label="Largest speck folded, in stitches"
+                      />
+                      <span>stitches into the nearer knitted colour (larger areas stay darned)</span>
+                    </div>
                   </fieldset>
 
                   <div className="flex flex-wrap items-center gap-3">
@@ -574,6 +593,7 @@ export function PhotoImport(props: PhotoImportProps) {
                   </ul>
                 ) : null}
                 {answer.report.isolatedReplaced ? <p className="text-sm">Clean-up changed {answer.report.isolatedReplaced} single stray stitches.</p> : null}
+                {answer.rounds ? <RoundsCleanupNote rounds={answer.rounds} palette={chart.palette} /> : null}
                 {answer.cellsOutside ? <p className="text-sm">{answer.cellsOutside} stitches outside the area&apos;s shape are never knitted; they are left in the first colour.</p> : null}
                 <div className="overflow-x-auto">
                   <table className="w-full text-sm [&_td]:px-2 [&_th]:px-2" data-testid="photo-import-colours">
@@ -654,5 +674,36 @@ export function PhotoImport(props: PhotoImportProps) {
         ) : null}
       </dialog>
     </>
+  );
+}
+
+/** What the round clean-up folded and what it saves, from the round-by-round plan of this chart. */
+function RoundsCleanupNote({ rounds, palette }: { rounds: RoundsCleanup; palette: { key: string; name: string }[] }) {
+  const { before: b, after: a, changed, groups } = rounds;
+  const name = (key: string) => palette.find((p) => p.key === key)?.name || key;
+  const min = (m: number) => m.toLocaleString("en-GB", { maximumFractionDigits: 0 });
+  return (
+    <div className="text-sm" data-testid="photo-import-rounds">
+      <p>
+        Two knitted colours per round: {changed.length ? `${groups.folded} speck${groups.folded === 1 ? "" : "s"} folded (${changed.length} stitch${changed.length === 1 ? "" : "es"} changed)` : "nothing to fold"}
+        {groups.kept ? `; ${groups.kept} larger darned area${groups.kept === 1 ? "" : "s"} kept` : ""}
+        {groups.keptDearer ? `; ${groups.keptDearer} kept because folding cost more` : ""}.
+      </p>
+      <p>
+        Round-by-round plan of this chart, before → after: darned stitches {b.darnedStitches} → {a.darnedStitches}, ends {b.ends} → {a.ends}, about {min(b.minutes)} → {min(a.minutes)} minutes, rounds with more than two colours {b.roundsOverTwo} → {a.roundsOverTwo}.
+      </p>
+      {changed.length ? (
+        <details>
+          <summary>Stitches changed (row from the bottom, stitch from the right)</summary>
+          <ul className="max-h-40 overflow-auto pl-5">
+            {changed.map((c) => (
+              <li key={`${c.row}-${c.stitch}`}>
+                Row {c.row}, stitch {c.stitch}: {name(c.from)} → {name(c.to)}
+              </li>
+            ))}
+          </ul>
+        </details>
+      ) : null}
+    </div>
   );
 }

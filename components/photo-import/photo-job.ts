@@ -4,7 +4,7 @@
 // worker starts, like the live price's garment reading.
 import { parseChart, serializeChart, type Chart, type ChartV1 } from "@/lib/core/chart";
 import { areaShapeMask, hasOutsideCells, type AreaShape } from "@/lib/core/design-garment";
-import { photoToChart, type PhotoReport, type PhotoToChartOptions, type RgbaImage } from "@/lib/core/photo";
+import { limitRoundColours, photoToChart, type LimitRoundColoursOptions, type LimitRoundColoursResult, type PhotoReport, type PhotoToChartOptions, type RgbaImage } from "@/lib/core/photo";
 import type { ChartPiece } from "@/lib/core/pricing/live-price";
 import type { SizingResult } from "@/lib/core/sizing";
 import { readGarment, type GarmentRead, type LivePricing } from "../chart-editor/garment-reading";
@@ -17,10 +17,15 @@ export interface PhotoJob {
   shape?: AreaShape | null;
   /** the design's charts and which one the import replaces, to price before and after */
   garment?: { sizing: SizingResult; charts: ChartPiece[]; index: number; pricing: LivePricing } | null;
+  /** the round clean-up (limitRoundColours), at the studio's rates and limits when the garment gives them */
+  limitRounds?: Pick<LimitRoundColoursOptions, "maxStitches" | "inTheRound"> | null;
 }
 
+/** What the round clean-up did, for the preview. */
+export type RoundsCleanup = Omit<LimitRoundColoursResult, "chart">;
+
 export type PhotoJobAnswer =
-  | { seq: number; ok: true; chart: ChartV1; report: PhotoReport; cellsOutside: number; before: GarmentRead | null; after: GarmentRead | null }
+  | { seq: number; ok: true; chart: ChartV1; report: PhotoReport; cellsOutside: number; before: GarmentRead | null; after: GarmentRead | null; rounds?: RoundsCleanup | null }
   | { seq: number; ok: false; message: string; field: string | null };
 
 export function runPhotoJob(job: PhotoJob): PhotoJobAnswer {
@@ -48,6 +53,26 @@ export function runPhotoJob(job: PhotoJob): PhotoJobAnswer {
     doc = serializeChart(chart);
   }
   const g = job.garment;
+  let rounds: RoundsCleanup | null = null;
+  if (job.limitRounds) {
+    const p = g?.pricing;
+    const r = p?.policy.rates;
+    try {
+      const { chart: cleaned, ...rest } = limitRoundColours(chart, {
+        ...job.limitRounds,
+        ...(p ? { floatLimitStitches: p.floatLimitStitches } : {}),
+        ...(p?.floatLimitCm !== undefined ? { floatLimitCm: p.floatLimitCm } : {}),
+        ...(p?.carryLimitCm !== undefined ? { carryLimitCm: p.carryLimitCm } : {}),
+        ...(r ? { rates: { secondsPerDuplicateStitch: r.secondsPerDuplicateStitch, minutesPerEnd: r.minutesPerEnd, secondsPerCarryCm: r.secondsPerCarryCm, secondsPerFloatCatch: r.secondsPerFloatCatch } } : {}),
+      });
+      doc = cleaned;
+      chart = parseChart(doc);
+      rounds = rest;
+    } catch (e) {
+      const field = e && typeof e === "object" && "field" in e && typeof e.field === "string" ? e.field : null;
+      return { seq: job.seq, ok: false, message: e instanceof Error ? e.message : String(e), field };
+    }
+  }
   let before: GarmentRead | null = null;
   let after: GarmentRead | null = null;
   if (g) {
@@ -58,6 +83,6 @@ export function runPhotoJob(job: PhotoJob): PhotoJobAnswer {
       g.pricing,
     );
   }
-  return { seq: job.seq, ok: true, chart: doc, report, cellsOutside, before, after };
+  return { seq: job.seq, ok: true, chart: doc, report, cellsOutside, before, after, rounds };
 }
 

@@ -14,6 +14,15 @@ export { PhotoError } from "./photo-error";
 export type { PixelBox } from "./resample";
 export { kMeans, seededRandom } from "./kmeans";
 export { labToHex, linearToLab } from "./colour-space";
+export {
+  DEFAULT_MAX_SPECK_STITCHES,
+  limitRoundColours,
+  MAX_SPECK_STITCHES,
+  type ChangedStitch,
+  type LimitRoundColoursOptions,
+  type LimitRoundColoursResult,
+  type RoundPlanCost,
+} from "./limit-round-colours";
 
 /** RGBA, 4 bytes per pixel, row-major, top row first. */
 export interface RgbaImage {

@@ -62,4 +62,25 @@ describe("one photo import worked out (what the worker runs)", () => {
     expect(out.after?.pieces.length).toBe(out.before?.pieces.length);
     expect(JSON.stringify(out.after?.pieces)).not.toBe(JSON.stringify(out.before?.pieces));
   });
+
+  test("the round clean-up folds a speck of a third colour and reports the plan before and after", () => {
+    const W = 20;
+    const H = 12;
+    const rows: string[][] = Array.from({ length: H }, (_, r) => Array.from({ length: W }, (_, x) => (((x >> 1) + (r >> 1)) % 3 === 0 ? "B" : "A")));
+    rows[4][7] = "C"; // one red stitch in a green and white round
+    const doc: ChartV1 = { version: 1, width: W, height: H, gauge, palette, rows: rows.map((r) => r.join("")) };
+    const image = chartToPixels(doc, 9, 8);
+    const options = { width: W, height: H, gauge, palette };
+    const plain = runPhotoJob({ seq: 3, image, options });
+    const cleaned = runPhotoJob({ seq: 4, image, options, limitRounds: { maxStitches: 2, inTheRound: true } });
+    expect(plain.ok && cleaned.ok).toBe(true);
+    if (!plain.ok || !cleaned.ok) return;
+    expect(plain.rounds ?? null).toBeNull();
+    expect(plain.chart.rows[4][7]).toBe("C");
+    expect(cleaned.rounds?.changed).toEqual([{ row: H - 4, stitch: W - 7, from: "C", to: cleaned.chart.rows[4][7] }]);
+    expect(cleaned.chart.rows[4][7]).not.toBe("C");
+    expect(cleaned.rounds!.after.darnedStitches).toBe(0);
+    expect(cleaned.rounds!.before.darnedStitches).toBe(1);
+    expect(cleaned.rounds!.after.ends).toBeLessThan(cleaned.rounds!.before.ends);
+  });
 });
