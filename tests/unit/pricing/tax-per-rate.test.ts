@@ -101,7 +101,7 @@ describe("a worked UK invoice: a zero-rated child's hat beside a standard-rated 
 });
 
 describe("one rate, as before", () => {
-  test("only taxRatePercent: one standard rate for every line, the quote verb's keys unchanged", () => {
+  test("only taxRatePercent: one standard rate for every line, the quote verb's keys (the spec's plus minorDigits)", () => {
     const input = { currency: "GBP", hourlyRateMinor: 2000, labourMinutes: { knitting: 95 }, shippingMinor: 333, discount: { amountMinor: 101 }, taxRatePercent: 17.5 };
     const q = buildQuote(input);
     // 95 min × £20/h = 3166.67 → 3167; + 333 − 101 = 3399; 17.5 % = 594.825 → 595.
@@ -109,7 +109,7 @@ describe("one rate, as before", () => {
     expect(q.taxByRate).toHaveLength(1);
     expect(q.taxByRate[0]).toMatchObject({ category: "standard", ratePpm: 175_000, netMinor: 3399, taxMinor: 595, discountMinor: 101 });
     const out = quoteVerb(input) as Record<string, unknown>;
-    expect(Object.keys(out).sort()).toEqual(["balanceMinor", "currency", "depositMinor", "lines", "subtotalMinor", "taxMinor", "totalMinor"].sort().filter((k) => k in out));
+    expect(Object.keys(out).sort()).toEqual(["balanceMinor", "currency", "depositMinor", "lines", "minorDigits", "subtotalMinor", "taxMinor", "totalMinor"].sort());
     expect(Object.keys((out.lines as object[])[0])).toEqual(["label", "amountMinor"]);
   });
 
