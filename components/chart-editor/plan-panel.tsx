@@ -110,7 +110,7 @@ export function PlanPanel({ chart, defaults, inTheRound: roundDefault, onMarks, 
           <input type="checkbox" checked={inTheRound} onChange={(e) => setInTheRound(e.target.checked)} /> Knitted in the round
         </label>
         <label className="flex items-center gap-2 text-sm">
-          <input type="checkbox" checked={showFloats} onChange={(e) => setShowFloats(e.target.checked)} /> Mark long floats on the chart
+          <input type="checkbox" checked={showFloats} onChange={(e) => setShowFloats(e.target.checked)} /> Mark long floats on the chart (a bar under each stitch of the float)
         </label>
         <p className="text-sm text-bark">
           Limits: floats over {defaults.floatLimitStitches} stitches or {defaults.floatLimitCm} cm, carries over {defaults.carryLimitCm} cm (studio settings).
@@ -172,7 +172,7 @@ export function PlanPanel({ chart, defaults, inTheRound: roundDefault, onMarks, 
           {overRows.length ? (
             <div className="overflow-x-auto">
               <table className="w-full text-sm">
-                <caption className="mb-1 text-left font-semibold">Rows with floats over the limit (outlined on the chart)</caption>
+                <caption className="mb-1 text-left font-semibold">Rows with floats over the limit (marked on the chart when shown)</caption>
                 <thead>
                   <tr className="border-b border-bark/30 text-left">
                     <th scope="col">Row</th>
