@@ -11,7 +11,7 @@ const GRID: readonly [number, number, number, number] = [60, 50, 40, 90];
 export interface CellMark {
   x: number;
   y: number;
-  /** a short label drawn in the cell (a step number), else an outline */
+  /** a short label drawn in the cell (a step number), else a quiet bar under the stitch */
   label?: string;
 }
 
@@ -112,8 +112,10 @@ export function ChartCanvas(props: ChartCanvasProps) {
           ctx.fillText(m.label, cx + cw / 2, cy + ch / 2);
           ctx.textAlign = "start";
         } else {
-          ctx.strokeStyle = "#D4145A";
-          ctx.strokeRect(cx + 0.5, cy + 0.5, cw - 1, ch - 1);
+          // Float marks are quiet: a thin translucent bar along the bottom of each stitch of the
+          // float, so a chart with many long floats stays readable (the plan panel turns them off).
+          ctx.fillStyle = "rgba(212,20,90,0.55)";
+          ctx.fillRect(cx, cy + ch - Math.max(2, Math.round(ch / 5)), cw, Math.max(2, Math.round(ch / 5)));
         }
       }
     }

@@ -44,8 +44,10 @@ import { areaShapeMask, chartDarn, hasOutsideCells, matchArea, outsideMessage, s
 import { Notice } from "@/components/ui/notice";
 import { ChartCanvas, type CellMark } from "./chart-canvas";
 import {
+  autosaveDelay,
   commitEdit,
   layersOf,
+  offChartProblem,
   mirrorForPair,
   nextFreeKey,
   pairArea,
@@ -153,7 +155,6 @@ const rectFrom = (a: Point, b: Point): Rect => ({
 });
 const inside = (r: Rect | null, p: Point) => !!r && p.x >= r.x && p.y >= r.y && p.x < r.x + r.width && p.y < r.y + r.height;
 
-const AUTOSAVE_MS = 1200;
 
 export function ChartEditor(props: ChartEditorProps) {
   const queryClient = useQueryClient();
@@ -161,6 +162,14 @@ export function ChartEditor(props: ChartEditorProps) {
   const [entries, setEntries] = useState<EditorEntry[]>(() => toEditorEntries(props.entries, book.current));
   const [active, setActive] = useState(0);
   const [tool, setTool] = useState<Tool>("paint");
+  /** on a touch screen nothing is painted until a tool has been chosen (a tap meant to scroll paints nothing) */
+  const [toolChosen, setToolChosen] = useState(false);
+  const chooseTool = (t: Tool) => {
+    setTool(t);
+    setToolChosen(true);
+  };
+  const touchEdit = useRef(false);
+  const dirtySince = useRef<number | null>(null);
   const [colour, setColour] = useState(1);
   const [background, setBackground] = useState(0);
   const [zoom, setZoom] = useState(() => {
@@ -367,9 +376,13 @@ export function ChartEditor(props: ChartEditorProps) {
     if (revision === 0) return;
     const blocked = () => saveRef.current.kind === "conflict" || saveRef.current.kind === "locked";
     if (!blocked()) setSave({ kind: "dirty" });
+    // Quick edits make one version: the wait restarts with each edit (longer after taps), up to a maximum.
+    const now = Date.now();
+    dirtySince.current ??= now;
     const t = setTimeout(() => {
+      dirtySince.current = null;
       if (!blocked()) void saveNow();
-    }, AUTOSAVE_MS);
+    }, autosaveDelay({ touch: touchEdit.current, dirtySinceMs: dirtySince.current, nowMs: now }));
     return () => clearTimeout(t);
   }, [revision, saveNow]);
 
@@ -407,7 +420,8 @@ export function ChartEditor(props: ChartEditorProps) {
       setParentId(versionId);
       parentRef.current = versionId;
       setSelection(null);
-      setSave({ kind: "saved", number: body.version.number });
+      // Viewing an older version of a locked design keeps it locked.
+      setSave(saveRef.current.kind === "locked" ? saveRef.current : { kind: "saved", number: body.version.number });
       setOpenedVersion((n) => n + 1);
       void queryClient.invalidateQueries({ queryKey: ["design-versions", props.designId] });
     },
@@ -461,6 +475,22 @@ export function ChartEditor(props: ChartEditorProps) {
     [tool, present, motif, colour, motifBackground, background, clipboard],
   );
 
+  /** Places the motif or the copied stitches with their bottom-left at `p`; refused with a message when they would not fit. */
+  const placeAt = (p: Point) => {
+    const size = tool === "motif" ? motif : clipboard;
+    if (!size) {
+      setMessage({ tone: "info", text: "Copy a selection first, then click where it goes." });
+      return;
+    }
+    const problem = offChartProblem(present, size, p, tool === "motif" ? `motif “${motif.name}”` : "copied block");
+    if (problem) {
+      setMessage({ tone: "error", text: problem });
+      return;
+    }
+    const g = ghostAt(p);
+    if (g && apply(g)) setMessage(null);
+  };
+
   /** The stroke's chart so far: shown at once, committed as one undo step on release. */
   const showStroke = (chart: Chart) => {
     if (drag.current) drag.current.preview = chart;
@@ -474,6 +504,11 @@ export function ChartEditor(props: ChartEditorProps) {
       return;
     }
     if (readOnly) return;
+    if (e.pointerType === "touch" && !toolChosen) {
+      setMessage({ tone: "info", text: "Choose a tool above the chart first (Paint, Fill, …): a tap on the chart paints only after that. Drag with Pan to move around." });
+      return;
+    }
+    touchEdit.current = e.pointerType === "touch";
     setCursor(null);
     switch (tool) {
       case "paint": {
@@ -488,7 +523,7 @@ export function ChartEditor(props: ChartEditorProps) {
         return;
       case "eyedropper":
         setColour(present.cells[p.y * present.width + p.x]);
-        setTool("paint");
+        chooseTool("paint");
         return;
       case "line":
       case "rect":
@@ -504,12 +539,10 @@ export function ChartEditor(props: ChartEditorProps) {
         setLetterBox({ x: p.x, y: p.y, width: 1, height: 1 });
         return;
       case "motif":
-      case "paste": {
-        const g = ghostAt(p);
-        if (g) apply(g);
+      case "paste":
+        placeAt(p);
         setPreview(null);
         return;
-      }
     }
   };
 
@@ -577,10 +610,8 @@ export function ChartEditor(props: ChartEditorProps) {
       e.preventDefault();
       if (tool === "fill") run(() => floodFill(present, c, colour));
       else if (tool === "eyedropper") setColour(present.cells[c.y * present.width + c.x]);
-      else if (tool === "motif" || tool === "paste") {
-        const g = ghostAt(c);
-        if (g) apply(g);
-      } else run(() => cloneChart(present, (() => { const cells = present.cells.slice(); cells[c.y * present.width + c.x] = colour; return cells; })()));
+      else if (tool === "motif" || tool === "paste") placeAt(c);
+      else run(() => cloneChart(present, (() => { const cells = present.cells.slice(); cells[c.y * present.width + c.x] = colour; return cells; })()));
       setCursor(c);
     }
   };
@@ -702,7 +733,7 @@ export function ChartEditor(props: ChartEditorProps) {
     return `data:image/svg+xml;charset=utf-8,${encodeURIComponent(svg)}`;
   }, [previewOf]);
 
-  const toolHint = TOOLS.find((t) => t.id === tool)?.hint ?? "";
+  const toolHint = readOnly ? "The design is locked: the tools are off; Pan and the version list still work" : (TOOLS.find((t) => t.id === tool)?.hint ?? "");
 
   return (
     <div className="grid gap-6 lg:grid-cols-[1fr_20rem]">
@@ -778,22 +809,23 @@ export function ChartEditor(props: ChartEditorProps) {
             <button
               key={t.id}
               type="button"
-              aria-pressed={tool === t.id}
-              title={t.hint}
+              aria-pressed={tool === t.id && !(readOnly && t.id !== "pan")}
+              title={readOnly && t.id !== "pan" ? "The design is locked" : t.hint}
+              disabled={readOnly && t.id !== "pan"}
               onClick={() => {
-                setTool(t.id);
+                chooseTool(t.id);
                 setPreview(null);
               }}
-              className={`rounded-md border px-3 py-1.5 text-sm font-semibold focus-visible:outline focus-visible:outline-2 focus-visible:outline-loch ${tool === t.id ? "border-peat bg-peat text-white" : "border-bark/40 bg-white text-peat hover:bg-fleece"}`}
+              className={`rounded-md border px-3 py-1.5 text-sm font-semibold focus-visible:outline focus-visible:outline-2 focus-visible:outline-loch disabled:cursor-not-allowed disabled:border-dashed disabled:bg-fleece disabled:text-bark ${tool === t.id && !(readOnly && t.id !== "pan") ? "border-peat bg-peat text-white" : "border-bark/40 bg-white text-peat hover:bg-fleece"}`}
             >
               {t.label}
             </button>
           ))}
           <span className="mx-1 border-l border-bark/30" aria-hidden="true" />
-          <Button variant="secondary" className="!px-3 !py-1.5 text-sm" onClick={doUndo} disabled={!canUndo(entry.history)} aria-keyshortcuts="Control+Z Meta+Z">
+          <Button variant="secondary" className="!px-3 !py-1.5 text-sm" onClick={doUndo} disabled={readOnly || !canUndo(entry.history)} aria-keyshortcuts="Control+Z Meta+Z">
             Undo
           </Button>
-          <Button variant="secondary" className="!px-3 !py-1.5 text-sm" onClick={doRedo} disabled={!canRedo(entry.history)} aria-keyshortcuts="Control+Shift+Z Control+Y">
+          <Button variant="secondary" className="!px-3 !py-1.5 text-sm" onClick={doRedo} disabled={readOnly || !canRedo(entry.history)} aria-keyshortcuts="Control+Shift+Z Control+Y">
             Redo
           </Button>
           <span className="mx-1 border-l border-bark/30" aria-hidden="true" />
@@ -839,7 +871,7 @@ export function ChartEditor(props: ChartEditorProps) {
         ) : null}
 
         <div className="grid gap-4 md:grid-cols-2">
-          <fieldset className="rounded-md border border-bark/30 p-3">
+          <fieldset className="rounded-md border border-bark/30 p-3 disabled:opacity-60" disabled={readOnly}>
             <legend className="px-1 font-semibold">Shape and repeat</legend>
             <div className="flex flex-wrap gap-2">
               <Button variant="secondary" className="!px-3 !py-1.5 text-sm" onClick={() => run(() => flipHorizontal(present, selection ?? undefined))}>
@@ -902,7 +934,7 @@ export function ChartEditor(props: ChartEditorProps) {
             </label>
           </fieldset>
 
-          <fieldset className="rounded-md border border-bark/30 p-3">
+          <fieldset className="rounded-md border border-bark/30 p-3 disabled:opacity-60" disabled={readOnly}>
             <legend className="px-1 font-semibold">Motifs and lettering</legend>
             <div className="flex flex-wrap items-end gap-2">
               <label className="flex flex-col text-sm">
@@ -915,7 +947,7 @@ export function ChartEditor(props: ChartEditorProps) {
                   ))}
                 </select>
               </label>
-              <Button variant="secondary" className="!px-3 !py-1.5 text-sm" onClick={() => setTool("motif")}>
+              <Button variant="secondary" className="!px-3 !py-1.5 text-sm" onClick={() => chooseTool("motif")}>
                 Place motif
               </Button>
             </div>
@@ -978,7 +1010,7 @@ export function ChartEditor(props: ChartEditorProps) {
       </div>
 
       <aside className="space-y-4">
-        <fieldset className="rounded-md border border-bark/30 bg-white p-3">
+        <fieldset className="rounded-md border border-bark/30 bg-white p-3" disabled={readOnly}>
           <legend className="px-1 font-semibold">Colours</legend>
           <ul className="space-y-1">
             {present.palette.map((c, i) => (
@@ -1039,7 +1071,8 @@ export function ChartEditor(props: ChartEditorProps) {
           </Button>
           {versions.isPending ? <p className="text-sm">Loading versions…</p> : null}
           {versions.isError ? <p className="text-sm text-madder-dark">Could not load the versions.</p> : null}
-          <ol className="max-h-72 space-y-1 overflow-auto text-sm" data-testid="version-list">
+          {/* Focusable so the list scrolls from the keyboard even when no button is in it (a locked design). */}
+          <ol className="max-h-72 space-y-1 overflow-auto text-sm focus-visible:outline focus-visible:outline-2 focus-visible:outline-loch" data-testid="version-list" tabIndex={0} aria-labelledby="versions-heading">
             {(versions.data ?? []).map((v) => (
               <li key={v.id} className="flex items-center gap-2">
                 <span>
@@ -1053,6 +1086,11 @@ export function ChartEditor(props: ChartEditorProps) {
                 {v.id !== parentId && !readOnly ? (
                   <Button variant="quiet" className="ml-auto !px-1 !py-0 text-sm" onClick={() => void loadVersion(v.id, true)} aria-label={`Open version ${v.number} as current`}>
                     Open
+                  </Button>
+                ) : null}
+                {v.id !== parentId && readOnly ? (
+                  <Button variant="quiet" className="ml-auto !px-1 !py-0 text-sm" onClick={() => void loadVersion(v.id, false)} aria-label={`View version ${v.number} (the design stays locked)`}>
+                    View
                   </Button>
                 ) : null}
               </li>

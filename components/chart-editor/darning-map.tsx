@@ -1,7 +1,7 @@
 "use client";
 // One darned colour's route as a numbered stitch map: the needle's order, each strand's start (ring)
 // and end (square), carries on the wrong side as dashed lines. Step through it or let it play.
-import { useEffect, useMemo, useState } from "react";
+import { useEffect, useMemo, useRef, useState } from "react";
 import type { ChartV1 } from "@/lib/core/chart";
 import type { ColourDarning } from "@/lib/core/colourwork/darn-colour";
 import { Button } from "@/components/ui/button";
@@ -25,10 +25,21 @@ export function flattenRoute(colour: ColourDarning): Step[] {
   return out;
 }
 
+/** How many steps the map shows when it opens: the whole first strand. */
+export function firstStrandSteps(steps: { strand: number }[]): number {
+  const n = steps.findIndex((s) => s.strand !== 1);
+  return n < 0 ? steps.length : n;
+}
+
+const ZOOMS = [12, 16, 22, 30, 40];
+
 export function DarningMap({ chart, colour }: { chart: ChartV1; colour: ColourDarning }) {
   const steps = useMemo(() => flattenRoute(colour), [colour]);
-  const [at, setAt] = useState(steps.length);
+  // Opens on the first strand (not the whole route), large enough to read the step numbers.
+  const [at, setAt] = useState(() => firstStrandSteps(steps));
   const [playing, setPlaying] = useState(false);
+  const [zoomAt, setZoomAt] = useState(() => (chart.width > 60 ? 1 : 2));
+  const view = useRef<HTMLDivElement>(null);
 
   useEffect(() => {
     if (!playing) return;
@@ -40,8 +51,8 @@ export function DarningMap({ chart, colour }: { chart: ChartV1; colour: ColourDa
     return () => clearTimeout(t);
   }, [playing, at, steps.length]);
 
-  const cell = Math.max(8, Math.min(22, Math.floor(640 / chart.width)));
-  const rowH = Math.max(6, Math.round((cell * chart.gauge.stitchesPer10cm) / chart.gauge.rowsPer10cm));
+  const cell = ZOOMS[zoomAt];
+  const rowH = Math.max(10, Math.round((cell * chart.gauge.stitchesPer10cm) / chart.gauge.rowsPer10cm));
   const w = chart.width * cell;
   const h = chart.height * rowH;
   const cx = (stitch: number) => (chart.width - stitch + 0.5) * cell;
@@ -49,7 +60,17 @@ export function DarningMap({ chart, colour }: { chart: ChartV1; colour: ColourDa
   const hex = new Map(chart.palette.map((c) => [c.key, c.hex]));
   const shown = steps.slice(0, at);
   const now = shown[shown.length - 1];
-  const font = Math.max(6, Math.min(11, Math.floor(Math.min(cell, rowH) * 0.55)));
+  const font = Math.max(9, Math.min(16, Math.floor(Math.min(cell, rowH) * 0.6)));
+
+  // Keep the current stitch (at first, the first strand's start) in view rather than an empty corner.
+  const focus = now ?? steps[0];
+  useEffect(() => {
+    const box = view.current;
+    if (!box || !focus) return;
+    box.scrollLeft = Math.max(0, cx(focus.stitch) - box.clientWidth / 2);
+    box.scrollTop = Math.max(0, cy(focus.row) - box.clientHeight / 2);
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [focus?.stitch, focus?.row, cell, rowH]);
 
   return (
     <figure className="mt-2">
@@ -69,13 +90,19 @@ export function DarningMap({ chart, colour }: { chart: ChartV1; colour: ColourDa
         <Button variant="secondary" className="!px-3 !py-1 text-sm" onClick={() => { setPlaying(false); setAt(steps.length); }}>
           Whole route
         </Button>
+        <Button variant="secondary" className="!px-3 !py-1 text-sm" aria-label="Zoom the route map out" disabled={zoomAt === 0} onClick={() => setZoomAt((z) => Math.max(0, z - 1))}>
+          −
+        </Button>
+        <Button variant="secondary" className="!px-3 !py-1 text-sm" aria-label="Zoom the route map in" disabled={zoomAt === ZOOMS.length - 1} onClick={() => setZoomAt((z) => Math.min(ZOOMS.length - 1, z + 1))}>
+          +
+        </Button>
         <p className="text-sm" aria-live="polite" data-testid="route-step">
           {now
             ? `Step ${at} of ${steps.length}: strand ${now.strand}, row ${now.row}, stitch ${now.stitch}${now.carryCm > 0 ? `, carried ${now.carryCm.toFixed(1)} cm` : ""}${now.first ? " (strand starts)" : ""}${now.last ? " (strand ends)" : ""}`
             : `${steps.length} stitches in ${colour.strands.length} strand${colour.strands.length === 1 ? "" : "s"}`}
         </p>
       </div>
-      <div className="mt-2 max-h-[32rem] overflow-auto rounded border border-bark/20" tabIndex={0} aria-label={`Route map for ${colour.name}`}>
+      <div ref={view} className="mt-2 max-h-[32rem] overflow-auto rounded border border-bark/20 bg-white" tabIndex={0} aria-label={`Route map for ${colour.name}`}>
         <svg width={w} height={h} viewBox={`0 0 ${w} ${h}`} role="img" aria-label={`Darning route for ${colour.name}: ${colour.stitches} stitches, ${colour.strands.length} strands, ${colour.ends} ends, ${colour.carryCm} cm carried`}>
           {chart.rows.map((text, i) =>
             Array.from(text).map((k, x) => (
@@ -91,7 +118,7 @@ export function DarningMap({ chart, colour }: { chart: ChartV1; colour: ColourDa
             <g key={`s${i}`}>
               {s.first ? <circle cx={cx(s.stitch)} cy={cy(s.row)} r={Math.min(cell, rowH) / 2 - 0.5} fill="none" stroke="#1B6E3A" strokeWidth={2} /> : null}
               {s.last ? <rect x={cx(s.stitch) - cell / 2 + 1} y={cy(s.row) - rowH / 2 + 1} width={cell - 2} height={rowH - 2} fill="none" stroke="#A8322D" strokeWidth={2} /> : null}
-              <text x={cx(s.stitch)} y={cy(s.row)} fontSize={font} textAnchor="middle" dominantBaseline="central" fill={i === at - 1 ? "#0B5FFF" : "#1B1B1B"} fontWeight={i === at - 1 ? 700 : 400}>
+              <text x={cx(s.stitch)} y={cy(s.row)} fontSize={font} textAnchor="middle" dominantBaseline="central" fill={i === at - 1 ? "#0B5FFF" : "#1B1B1B"} fontWeight={i === at - 1 ? 700 : 600} stroke="#FFFFFF" strokeWidth={3} paintOrder="stroke" strokeLinejoin="round">
                 {i + 1}
               </text>
             </g>

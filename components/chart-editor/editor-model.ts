@@ -107,3 +107,36 @@ export function nextFreeKey(chart: Pick<Chart, "palette">): string {
   for (const k of KEYS) if (!chart.palette.some((c) => c.key === k)) return k;
   return "#";
 }
+
+/**
+ * Why a motif or pasted block of `size` cannot go with its bottom-left stitch at `at`, or null when
+ * it fits. Placements are refused rather than clipped, so no half motif lands on the chart unseen.
+ * Stitches are counted from the right and rows from the bottom, as on the chart.
+ */
+export function offChartProblem(chart: { width: number; height: number }, size: { width: number; height: number }, at: { x: number; y: number }, what: string): string | null {
+  const over: string[] = [];
+  const left = at.x + size.width - chart.width;
+  if (left > 0) over.push(`${left} stitch${left === 1 ? "" : "es"} past the left edge`);
+  if (at.x < 0) over.push(`${-at.x} stitch${at.x === -1 ? "" : "es"} past the right edge`);
+  const top = at.y + size.height - chart.height;
+  if (top > 0) over.push(`${top} row${top === 1 ? "" : "s"} past the top`);
+  if (at.y < 0) over.push(`${-at.y} row${at.y === -1 ? "" : "s"} past the bottom`);
+  if (!over.length) return null;
+  const fits = size.width <= chart.width && size.height <= chart.height;
+  return `Not placed: the ${what} (${size.width} × ${size.height}) would reach ${over.join(" and ")}. ${
+    fits ? "Click further from the edge: its bottom-left stitch goes where you click." : `It is larger than this ${chart.width} × ${chart.height} chart; choose a smaller one or resize the chart.`
+  }`;
+}
+
+export const AUTOSAVE_MS = 1200;
+/** On a touch screen taps come slower than a mouse drag: wait longer so a burst of taps is one version. */
+export const TOUCH_AUTOSAVE_MS = 5000;
+/** Unsaved edits never wait longer than this, however the edits keep coming. */
+export const AUTOSAVE_MAX_WAIT_MS = 20_000;
+
+/** How long autosave waits after an edit: longer after a tap, never beyond the maximum wait since the first unsaved edit. */
+export function autosaveDelay(input: { touch: boolean; dirtySinceMs: number; nowMs: number }): number {
+  const quiet = input.touch ? TOUCH_AUTOSAVE_MS : AUTOSAVE_MS;
+  const left = input.dirtySinceMs + AUTOSAVE_MAX_WAIT_MS - input.nowMs;
+  return Math.max(0, Math.min(quiet, left));
+}

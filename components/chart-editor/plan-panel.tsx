@@ -7,6 +7,7 @@ import { serializeChart, type Chart, type ChartV1 } from "@/lib/core/chart";
 import type { ColourPlan } from "@/lib/core/colourwork/colour-plan";
 import type { DarningPlan } from "@/lib/core/colourwork/darning-plan";
 import type { CellMark } from "./chart-canvas";
+import { Spinner } from "@/components/ui/skeleton";
 import { DarningMap } from "./darning-map";
 import { RoundsTable, type Pinning } from "./rounds-table";
 import type { RoundReading } from "@/lib/core/garment";
@@ -110,7 +111,7 @@ export function PlanPanel({ chart, defaults, inTheRound: roundDefault, onMarks, 
           <input type="checkbox" checked={inTheRound} onChange={(e) => setInTheRound(e.target.checked)} /> Knitted in the round
         </label>
         <label className="flex items-center gap-2 text-sm">
-          <input type="checkbox" checked={showFloats} onChange={(e) => setShowFloats(e.target.checked)} /> Mark long floats on the chart
+          <input type="checkbox" checked={showFloats} onChange={(e) => setShowFloats(e.target.checked)} /> Mark long floats on the chart (a bar under each stitch of the float)
         </label>
         <p className="text-sm text-bark">
           Limits: floats over {defaults.floatLimitStitches} stitches or {defaults.floatLimitCm} cm, carries over {defaults.carryLimitCm} cm (studio settings).
@@ -121,7 +122,11 @@ export function PlanPanel({ chart, defaults, inTheRound: roundDefault, onMarks, 
           {(plan.error as Error).message}
         </p>
       ) : null}
-      {!data && plan.isPending ? <p>Working out the plan…</p> : null}
+      {!data && plan.isPending ? (
+        <p role="status" aria-busy="true">
+          <Spinner /> Working out the plan…
+        </p>
+      ) : null}
       {data ? (
         <div className="space-y-4" aria-busy={plan.isFetching}>
           <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1">
@@ -172,7 +177,7 @@ export function PlanPanel({ chart, defaults, inTheRound: roundDefault, onMarks, 
           {overRows.length ? (
             <div className="overflow-x-auto">
               <table className="w-full text-sm">
-                <caption className="mb-1 text-left font-semibold">Rows with floats over the limit (outlined on the chart)</caption>
+                <caption className="mb-1 text-left font-semibold">Rows with floats over the limit (marked on the chart when shown)</caption>
                 <thead>
                   <tr className="border-b border-bark/30 text-left">
                     <th scope="col">Row</th>
@@ -246,7 +251,11 @@ export function PlanPanel({ chart, defaults, inTheRound: roundDefault, onMarks, 
           ) : null}
         </div>
       ) : null}
-      {plan.isFetching && data ? <p className="text-sm text-bark">Updating…</p> : null}
+      {plan.isFetching && data ? (
+        <p role="status" className="text-sm text-bark">
+          <Spinner /> Updating the plan…
+        </p>
+      ) : null}
     </section>
   );
 }

@@ -25,6 +25,11 @@ export const movePieceSchema = z.object({
   toStage: z.enum(PIECE_STAGES, { message: "Choose a stage." }),
 });
 
+export const moveCommissionPiecesSchema = z.object({
+  commissionId: id("commission"),
+  toStage: z.enum(PIECE_STAGES, { message: "Choose a stage." }),
+});
+
 export const startTimerSchema = z.object({
   pieceId: id("piece"),
   stage: z.enum(WORK_STAGES, { message: "Choose the stage you are working on." }),

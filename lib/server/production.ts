@@ -28,7 +28,7 @@ import {
   type Garment,
   type PieceEstimateMap,
 } from "@/lib/core/production";
-import { canMovePiece, pieceMovesFrom, type PieceStage } from "@/lib/core/workflow/pieces";
+import { pieceMovesFrom, piecePath, type PieceStage } from "@/lib/core/workflow/pieces";
 import { TERMINAL_STATES, type CommissionState } from "@/lib/core/workflow/states";
 import { WORK_STAGES, type ManualEntryInput, type WorkStageName } from "@/lib/schemas/production";
 import { manualEntrySchema, editEntrySchema, pieceFeaturesEditSchema } from "@/lib/schemas/production";
@@ -139,24 +139,66 @@ async function loadPieceFor(actor: Actor, pieceId: string, tx: Executor = db, lo
 
 const PIECE_STATUS = { forbidden: 403, not_in_production: 409, same_stage: 409, too_far_back: 409, unknown: 422 } as const;
 
-/** Moves a piece to another stage (core rules), writing the piece event in the same transaction. */
+type PieceRow = Awaited<ReturnType<typeof loadPieceFor>>["piece"];
+
+/**
+ * Takes one locked piece through `steps` (from piecePath), one piece event per stage passed, inside
+ * the caller's transaction. A piece leaving blocking starts drying; its drying ends after the
+ * piece's drying hours.
+ */
+async function stepPiece(tx: Tx, actor: Actor, role: NonNullable<ReturnType<typeof memberRole>>, piece: PieceRow, steps: PieceStage[]) {
+  const now = new Date();
+  let from = piece.stage;
+  let dryUntil = piece.dryUntil;
+  for (const [i, to] of steps.entries()) {
+    if (from === "blocking" && to !== "embroidery") dryUntil = new Date(now.getTime() + piece.dryingHours * 3_600_000);
+    // One transaction shares one now(): a millisecond apart keeps the stages passed in order.
+    await tx.insert(pieceEvents).values({ pieceId: piece.id, actorUserId: actor.userId, actorRole: role, fromStage: from, toStage: to, at: new Date(now.getTime() + i) });
+    from = to;
+  }
+  const [updated] = await tx.update(pieces).set({ stage: from, updatedAt: now, dryUntil }).where(eq(pieces.id, piece.id)).returning();
+  return updated;
+}
+
+/**
+ * Moves a piece to another stage (core rules), passing through every stage between (one piece
+ * event each), all in one transaction: a refused step moves nothing.
+ */
 export async function movePiece(actor: Actor, pieceId: string, toStage: PieceStage) {
   return db.transaction(async (tx) => {
     const { piece, commissionState } = await loadPieceFor(actor, pieceId, tx, true);
     assertCan(actor, "commission.work", piece.studioId);
     const role = memberRole(actor, piece.studioId)!;
-    const result = canMovePiece(piece.stage, toStage, role, { commissionState });
-    if (!result.ok) throw new AppError(PIECE_STATUS[result.code], `piece_${result.code}`, result.reason);
-    const now = new Date();
-    // A piece leaving blocking starts drying; its drying ends after the piece's drying hours.
-    const dryUntil = piece.stage === "blocking" && toStage !== "embroidery" ? new Date(now.getTime() + piece.dryingHours * 3_600_000) : piece.dryUntil;
-    const [updated] = await tx
-      .update(pieces)
-      .set({ stage: toStage, updatedAt: now, dryUntil })
-      .where(eq(pieces.id, piece.id))
-      .returning();
-    await tx.insert(pieceEvents).values({ pieceId: piece.id, actorUserId: actor.userId, actorRole: role, fromStage: piece.stage, toStage });
-    return updated;
+    const path = piecePath(piece.stage, toStage, role, { commissionState });
+    if (!path.ok) throw new AppError(PIECE_STATUS[path.code], `piece_${path.code}`, path.reason);
+    return stepPiece(tx, actor, role, piece, path.steps);
+  });
+}
+
+/**
+ * Moves every piece of a commission to one stage in one transaction (pieces already there stay).
+ * If any piece may not go, nothing moves and the refusal names the piece and gives the core's reason.
+ */
+export async function moveCommissionPieces(actor: Actor, commissionId: string, toStage: PieceStage) {
+  return db.transaction(async (tx) => {
+    const [c] = await tx
+      .select({ id: commissions.id, studioId: commissions.studioId, state: commissions.state })
+      .from(commissions)
+      .where(eq(commissions.id, commissionId))
+      .for("update");
+    if (!c || memberRole(actor, c.studioId) === null) throw notFound("That commission");
+    assertCan(actor, "commission.work", c.studioId);
+    const role = memberRole(actor, c.studioId)!;
+    const rows = await tx.select().from(pieces).where(eq(pieces.commissionId, c.id)).orderBy(asc(pieces.createdAt), asc(pieces.id)).for("update");
+    if (rows.length === 0) throw new AppError(409, "piece_none", "This commission has no pieces to move yet.");
+    const moved = [];
+    for (const piece of rows) {
+      if (piece.stage === toStage) continue;
+      const path = piecePath(piece.stage, toStage, role, { commissionState: c.state });
+      if (!path.ok) throw new AppError(PIECE_STATUS[path.code], `piece_${path.code}`, `${piece.name}: ${path.reason} Nothing was moved.`);
+      moved.push(await stepPiece(tx, actor, role, piece, path.steps));
+    }
+    return { moved: moved.length, total: rows.length };
   });
 }
 

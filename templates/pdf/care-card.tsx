@@ -2,11 +2,13 @@
 // and the cautions for its garment, wearer and fibre, each with its source. Content comes from
 // lib/core/production/care.ts (cautions: lib/core/safety).
 import { Document, Page, StyleSheet, Text, View } from "@react-pdf/renderer";
+import { TEXT_FONTS, TITLE_FONTS } from "./fonts";
 import type { CareCard } from "@/lib/core/production";
 
 const s = StyleSheet.create({
-  page: { fontFamily: "Atkinson Hyperlegible", fontSize: 11, padding: 36, color: "#2B2622", lineHeight: 1.45 },
-  title: { fontFamily: "Fraunces", fontSize: 20, marginBottom: 2 },
+  page: { fontFamily: TEXT_FONTS, fontSize: 11, padding: 36, color: "#2B2622", lineHeight: 1.45 },
+  // The page's line height would be taken in points of the body size: a title states its own.
+  title: { fontFamily: TITLE_FONTS, fontSize: 20, lineHeight: 1.3, marginBottom: 6 },
   muted: { color: "#5A4F45" },
   heading: { fontWeight: 700, fontSize: 12, marginTop: 14, marginBottom: 4 },
   line: { flexDirection: "row", marginBottom: 3 },

@@ -1,5 +1,6 @@
 // Shared pieces of the money documents (quote, invoice, receipt): header, line table, totals.
 import { StyleSheet, Text, View } from "@react-pdf/renderer";
+import { TEXT_FONTS, TITLE_FONTS } from "./fonts";
 
 export interface DocStudio {
   name: string;
@@ -29,8 +30,8 @@ export interface DocTaxRow {
 }
 
 export const styles = StyleSheet.create({
-  page: { fontFamily: "Atkinson Hyperlegible", fontSize: 10, padding: 40, color: "#2B2622", lineHeight: 1.4 },
-  title: { fontFamily: "Fraunces", fontSize: 22, lineHeight: 1.3, marginBottom: 6 },
+  page: { fontFamily: TEXT_FONTS, fontSize: 10, padding: 40, color: "#2B2622", lineHeight: 1.4 },
+  title: { fontFamily: TITLE_FONTS, fontSize: 22, lineHeight: 1.3, marginBottom: 6 },
   muted: { color: "#5A4F45" },
   row: { flexDirection: "row", justifyContent: "space-between" },
   block: { marginTop: 16 },

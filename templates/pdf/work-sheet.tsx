@@ -2,6 +2,7 @@
 // pair, float catches per row, and for every darned colour a numbered route map with ends and yarn;
 // first, when the commission has saved sizing, its recipe in metric and imperial.
 import { Document, Image, Page, StyleSheet, Text, View } from "@react-pdf/renderer";
+import { TEXT_FONTS, TITLE_FONTS } from "./fonts";
 import type { ReactNode } from "react";
 
 export interface WorkSheetColourKey {
@@ -78,9 +79,9 @@ export interface WorkSheetProps {
 }
 
 const styles = StyleSheet.create({
-  page: { fontFamily: "Atkinson Hyperlegible", fontSize: 10, padding: 36, color: "#222222", lineHeight: 1.35 },
-  h1: { fontFamily: "Fraunces", fontSize: 18, lineHeight: 1.3, marginBottom: 4 },
-  h2: { fontFamily: "Fraunces", fontSize: 14, marginTop: 10, marginBottom: 4 },
+  page: { fontFamily: TEXT_FONTS, fontSize: 10, padding: 36, color: "#222222", lineHeight: 1.35 },
+  h1: { fontFamily: TITLE_FONTS, fontSize: 18, lineHeight: 1.3, marginBottom: 4 },
+  h2: { fontFamily: TITLE_FONTS, fontSize: 14, marginTop: 10, marginBottom: 4 },
   h3: { fontWeight: 700, fontSize: 11, marginTop: 8, marginBottom: 3 },
   small: { fontSize: 8.5, color: "#555555" },
   row: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: "#BBBBBB", paddingVertical: 2 },

@@ -101,3 +101,29 @@ export function commissionReadyWhen(pieces: ReadonlyArray<{ stage: PieceStage }>
   const notDone = pieces.filter((p) => p.stage !== "done").length;
   return { ready: pieces.length > 0 && notDone === 0, notDone, total: pieces.length };
 }
+
+export type PiecePathResult = { ok: true; steps: PieceStage[] } | { ok: false; code: PieceMoveCode; reason: string };
+
+/**
+ * The moves that take a piece from `stage` to `toStage` one stage at a time, each allowed by
+ * `canMovePiece` (so the board can move a piece several stages at once and every stage it passes
+ * is recorded). Backward it is the single rework step the rules allow. The first refused step
+ * refuses the whole path with its reason.
+ */
+export function piecePath(stage: PieceStage, toStage: PieceStage, role: Role, ctx: PieceMoveContext): PiecePathResult {
+  const direct = canMovePiece(stage, toStage, role, ctx);
+  if (!direct.ok) return direct;
+  const from = PIECE_STAGES.indexOf(stage);
+  const to = PIECE_STAGES.indexOf(toStage);
+  if (to < from) return { ok: true, steps: [toStage] };
+  const steps: PieceStage[] = [];
+  let at = stage;
+  for (let i = from + 1; i <= to; i++) {
+    const next = PIECE_STAGES[i];
+    const step = canMovePiece(at, next, role, ctx);
+    if (!step.ok) return step;
+    steps.push(next);
+    at = next;
+  }
+  return { ok: true, steps };
+}

@@ -1,9 +1,9 @@
 "use server";
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
-import { createPiecesSchema, movePieceSchema } from "@/lib/schemas/production";
+import { createPiecesSchema, moveCommissionPiecesSchema, movePieceSchema } from "@/lib/schemas/production";
 import { formAction } from "@/lib/server/action";
-import { createPieces, markCommissionReady, movePiece, startProduction } from "@/lib/server/production";
+import { createPieces, markCommissionReady, moveCommissionPieces, movePiece, startProduction } from "@/lib/server/production";
 
 export const movePieceAction = formAction(
   movePieceSchema,
@@ -13,6 +13,17 @@ export const movePieceAction = formAction(
     return { stage: piece.stage as string };
   },
   { message: "Moved." },
+);
+
+export const moveCommissionPiecesAction = formAction(
+  moveCommissionPiecesSchema,
+  async (input, actor) => {
+    const r = await moveCommissionPieces(actor, input.commissionId, input.toStage);
+    revalidatePath("/studio/board");
+    revalidatePath(`/studio/commissions/${input.commissionId}`);
+    return r;
+  },
+  { message: "Moved together." },
 );
 
 export const setUpPiecesAction = formAction(

@@ -4,7 +4,7 @@ import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { idleState, type ActionState } from "@/lib/action-state";
 import { PIECE_STAGE_LABELS, PIECE_STAGES, type PieceStage } from "@/lib/core/workflow/pieces";
-import { markReadyAction, movePieceAction, setUpPiecesAction } from "./actions";
+import { markReadyAction, moveCommissionPiecesAction, movePieceAction, setUpPiecesAction } from "./actions";
 
 export function MovePieceForm({ pieceId, pieceName, stage, moves }: { pieceId: string; pieceName: string; stage: PieceStage; moves: PieceStage[] }) {
   const [state, action, pending] = useActionState<ActionState<{ stage: string }>, FormData>(movePieceAction, idleState);
@@ -27,13 +27,43 @@ export function MovePieceForm({ pieceId, pieceName, stage, moves }: { pieceId: s
         </select>
       </div>
       <Button type="submit" variant="secondary" disabled={pending} className="px-3 py-1 text-sm">
-        Move
+        {pending ? "Moving…" : "Move"}
       </Button>
       {state.status === "error" ? (
         <div className="w-full">
           <Notice tone="error">{state.message}</Notice>
         </div>
       ) : null}
+    </form>
+  );
+}
+
+/** Moves every piece of a commission to one stage at once (each through the stages between). */
+export function MoveCommissionPiecesForm({ commissionId, title, stages }: { commissionId: string; title: string; stages: PieceStage[] }) {
+  const [state, action, pending] = useActionState<ActionState<{ moved: number; total: number }>, FormData>(moveCommissionPiecesAction, idleState);
+  const id = useId();
+  return (
+    <form action={action} className="flex flex-wrap items-end gap-2">
+      <input type="hidden" name="commissionId" value={commissionId} />
+      <div className="flex flex-col">
+        <label htmlFor={id} className="text-sm font-semibold">
+          Move all pieces of {title} to
+        </label>
+        <select id={id} name="toStage" defaultValue={stages[stages.length - 1]} className="rounded-md border border-bark/40 bg-white px-2 py-1">
+          {stages.map((m) => (
+            <option key={m} value={m}>
+              {PIECE_STAGE_LABELS[m]}
+            </option>
+          ))}
+        </select>
+      </div>
+      <Button type="submit" variant="secondary" disabled={pending} className="px-3 py-1 text-sm">
+        {pending ? "Moving…" : "Move together"}
+      </Button>
+      <div className="w-full" aria-live="polite">
+        {state.status === "error" ? <Notice tone="error">{state.message}</Notice> : null}
+        {state.status === "ok" ? <Notice tone="success">{state.message}</Notice> : null}
+      </div>
     </form>
   );
 }

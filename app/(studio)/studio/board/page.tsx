@@ -7,7 +7,7 @@ import { formatDay } from "@/lib/format";
 import { requireStudioMember } from "@/lib/server/page-guards";
 import { getBoard, type BoardPiece } from "@/lib/server/production";
 import { RefreshEvery } from "@/components/production/refresh-every";
-import { MarkReadyForm, MovePieceForm, SetUpPiecesForm } from "./board-forms";
+import { MarkReadyForm, MoveCommissionPiecesForm, MovePieceForm, SetUpPiecesForm } from "./board-forms";
 
 export const metadata = { title: "Board" };
 export const dynamic = "force-dynamic";
@@ -49,6 +49,15 @@ function PieceCard({ p }: { p: BoardPiece }) {
 export default async function BoardPage() {
   const { actor, membership } = await requireStudioMember("/studio/board");
   const board = await getBoard(actor, membership.studioId);
+  // Commissions in production with more than one piece on the board, for the "move together" form.
+  const byCommission = new Map<string, { id: string; number: number; title: string; count: number }>();
+  for (const p of board.cards) {
+    if (p.commissionState !== "in_production") continue;
+    const c = byCommission.get(p.commissionId) ?? { id: p.commissionId, number: p.commissionNumber, title: p.commissionTitle, count: 0 };
+    c.count += 1;
+    byCommission.set(p.commissionId, c);
+  }
+  const together = [...byCommission.values()].filter((c) => c.count > 1);
   return (
     <>
       <RefreshEvery seconds={30} />
@@ -95,6 +104,19 @@ export default async function BoardPage() {
                   </p>
                 ) : null}
                 {c.note ? <p className="text-sm text-bark">{c.note}</p> : null}
+              </li>
+            ))}
+          </ul>
+        </Card>
+      ) : null}
+      {together.length > 0 ? (
+        <Card className="mb-6">
+          <h2 className="mb-2 text-xl">Move a commission&apos;s pieces together</h2>
+          <p className="mb-3 text-sm text-bark">Every piece goes to the chosen stage through the stages between, each recorded; if one piece may not go, none moves.</p>
+          <ul className="flex flex-col gap-3">
+            {together.map((c) => (
+              <li key={c.id}>
+                <MoveCommissionPiecesForm commissionId={c.id} title={`${c.number}. ${c.title} (${c.count} pieces)`} stages={PIECE_STAGES.filter((s) => s !== "queued")} />
               </li>
             ))}
           </ul>

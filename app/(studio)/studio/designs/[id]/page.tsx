@@ -1,8 +1,8 @@
 import Link from "next/link";
+import { PdfDownload } from "@/components/ui/pdf-download";
 import { notFound } from "next/navigation";
 import { ChartEditor } from "@/components/chart-editor/chart-editor";
 import { PageTitle } from "@/components/ui/card";
-import { buttonClass } from "@/components/ui/button";
 import type { StoredEntry } from "@/components/chart-editor/editor-model";
 import { can } from "@/lib/server/authz";
 import { getDesignWithHead, listStudioYarnColours } from "@/lib/server/designs";
@@ -57,9 +57,7 @@ export default async function DesignPage({ params }: { params: Promise<{ id: str
         }
       />
       <p className="-mt-3 mb-4">
-        <a className={buttonClass("secondary")} href={`/api/designs/${design.id}/work-sheet`}>
-          Download the work sheet (PDF)
-        </a>
+        <PdfDownload href={`/api/designs/${design.id}/work-sheet`} label="Download the work sheet (PDF)" fallbackName="work-sheet.pdf" />
       </p>
       <ChartEditor
         key={head.id}
