@@ -1,9 +1,34 @@
-// P80 factor from out-of-sample ratios (actual ÷ predicted): a one-sided 80 % prediction bound for
-// one new piece, assuming the log ratios are roughly normal (log-normal minutes), with Student's t
-// for the small-sample allowance. Method and sources: CALIBRATION.md beside this file.
+// P80 factor from out-of-sample ratios (actual ÷ predicted): a one-sided 80 % bound for one new
+// piece, assuming the log ratios are roughly normal (log-normal minutes), with a small-sample
+// allowance (Student's t prediction bound, or a 75 %-confidence tolerance bound where wider).
+// Method and sources: CALIBRATION.md beside this file.
 
 /** Standard normal 80th percentile, Φ⁻¹(0.8). */
 const Z80 = 0.8416212335729143;
+/** Confidence of the small-sample allowance: Φ⁻¹(0.75). */
+export const P80_CONFIDENCE = 0.75;
+const Z_CONFIDENCE = 0.6744897501960817;
+
+/**
+ * One-sided normal tolerance factor k: with confidence γ (P80_CONFIDENCE), at least 80 % of new
+ * values lie below mean + k·sd, from a sample of n. Natrella's approximation (M. G. Natrella,
+ * *Experimental Statistics*, NBS Handbook 91, 1963, §2-5; also Hahn & Meeker ch. 4; from memory):
+ * k = (z_p + √(z_p² − a·b)) ÷ a, a = 1 − z_γ² ÷ 2(n − 1), b = z_p² − z_γ² ÷ n.
+ * A small history gets a wider margin (k ≈ 1.34 at n = 4, 1.06 at 15, 0.97 at 40, 0.92 at 100),
+ * tending to z₀.₈ as the history grows.
+ */
+export function toleranceK80(n: number): number {
+  return toleranceK(n, Z80, Z_CONFIDENCE);
+}
+
+/** The same approximation for any content z_p and confidence z_γ (normal quantiles). */
+export function toleranceK(n: number, zp: number, zg: number): number {
+  if (!(n >= 2)) throw new RangeError(`a tolerance bound needs at least 2 values (got ${n})`);
+  const a = 1 - zg ** 2 / (2 * (n - 1));
+  const b = zp ** 2 - zg ** 2 / n;
+  if (!(a > 0)) throw new RangeError(`too few values (${n}) for this confidence`);
+  return (zp + Math.sqrt(zp ** 2 - a * b)) / a;
+}
 
 /**
  * Student's t 80th percentile with ν degrees of freedom: exact closed forms for ν = 1 and 2, the
@@ -51,7 +76,12 @@ export function spreadFromLogRatios(logRatios: number[], fittedCoefficients: num
   const mean = logRatios.reduce((s, v) => s + v, 0) / n;
   const sd = Math.sqrt(logRatios.reduce((s, v) => s + (v - mean) ** 2, 0) / (n - 1));
   const nu = Math.max(1, n - fittedCoefficients);
-  const log80 = mean + studentT80(nu) * sd * Math.sqrt(1 + 1 / n);
+  // The larger of two allowances for a small history: the prediction bound (80 % on average over
+  // the histories a studio could have had) and the tolerance bound (80 % with 75 % confidence, over
+  // the n − p + 1 values the fit leaves free), so one short history rarely gives a P80 that covers
+  // much less than four pieces in five.
+  const k = Math.max(studentT80(nu) * Math.sqrt(1 + 1 / n), toleranceK80(nu + 1));
+  const log80 = mean + k * sd;
   const sorted = [...logRatios].sort((a, b) => a - b);
   const mid = n >> 1;
   const medianLog = n % 2 ? sorted[mid] : (sorted[mid - 1] + sorted[mid]) / 2;

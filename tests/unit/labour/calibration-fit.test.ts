@@ -3,7 +3,7 @@ import { calibrateRates, type LoggedPiece } from "@/lib/core/labour/calibrate";
 import { defaultRates, type LabourRates } from "@/lib/core/labour/default-rates";
 import { fillPieceFeatures } from "@/lib/core/labour/piece-features";
 import { fitRobustLogNnls, fitRobustNnls } from "@/lib/core/labour/robust-fit";
-import { spreadFromLogRatios, studentT80 } from "@/lib/core/labour/spread";
+import { spreadFromLogRatios, studentT80, toleranceK, toleranceK80 } from "@/lib/core/labour/spread";
 import { getStageMinutes } from "@/lib/core/labour/stage-model";
 import { STAGES, type Stage } from "@/lib/core/labour/stages";
 import { makeHistory, seededRandom, TRUE_RATES } from "./synthetic-history";
@@ -100,6 +100,24 @@ describe("P80 from leave-one-out ratios", () => {
     [1000, 0.842],
   ])("t₀.₈ with %i degrees of freedom is %f", (nu, t) => {
     expect(studentT80(nu)).toBeCloseTo(t, 3);
+  });
+
+  // Exact one-sided normal tolerance factors, 90 % content with 95 % confidence, as printed in
+  // published tables (e.g. Natrella, NBS Handbook 91, Table A-7; values from memory): Natrella's
+  // approximation is within 0.05 of them.
+  test.each([
+    [10, 2.355],
+    [20, 1.926],
+    [50, 1.646],
+  ])("tolerance factor (90 %, 95 %) for n = %i is about %f", (n, k) => {
+    expect(Math.abs(toleranceK(n, 1.2815515655446004, 1.6448536269514722) - k)).toBeLessThan(0.05);
+  });
+
+  test("the P80 allowance shrinks as the history grows, towards z₀.₈, and is wider than the prediction bound for short histories", () => {
+    const ks = [3, 5, 8, 15, 40, 100, 10_000].map(toleranceK80);
+    ks.slice(1).forEach((k, i) => expect(k).toBeLessThan(ks[i]));
+    expect(Math.abs(ks.at(-1)! - 0.8416)).toBeLessThan(0.01);
+    for (const n of [4, 8, 15, 40]) expect(toleranceK80(n)).toBeGreaterThan(studentT80(n - 1) * Math.sqrt(1 + 1 / n));
   });
 
   test("a tight history still gives a P80 of at least 1; a wide one a larger factor with fewer pieces", () => {
