@@ -1,18 +1,41 @@
 import Link from "next/link";
 import { PageTitle } from "@/components/ui/card";
+import { ListFilter, matchesSearch, searchParam } from "@/components/ui/list-filter";
 import { listDesignsFor } from "@/lib/server/designs";
 import { requireStudioMember } from "@/lib/server/page-guards";
 
 export const metadata = { title: "Designs" };
 
-export default async function DesignsPage() {
+export default async function DesignsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const { actor, membership } = await requireStudioMember("/studio/designs");
-  const rows = (await listDesignsFor(actor)).filter((d) => d.studioId === membership.studioId);
+  const sp = await searchParams;
+  const q = searchParam(sp.q);
+  const status = ["locked", "open"].includes(searchParam(sp.status)) ? searchParam(sp.status) : "";
+  const all = (await listDesignsFor(actor)).filter((d) => d.studioId === membership.studioId);
+  const rows = all.filter((d) => matchesSearch(q, d.title) && (!status || (status === "locked") === Boolean(d.lockedVersionId)));
   return (
     <>
       <PageTitle title="Designs" lead="Every commission's charts. Start a design from its commission's page." />
+      {all.length > 0 ? (
+        <ListFilter
+          action="/studio/designs"
+          label="Find designs"
+          q={q}
+          placeholder="Title"
+          select={{
+            name: "status",
+            label: "State",
+            value: status,
+            options: [
+              { value: "", label: "Any state" },
+              { value: "open", label: "In progress" },
+              { value: "locked", label: "Approved (locked)" },
+            ],
+          }}
+        />
+      ) : null}
       {rows.length === 0 ? (
-        <p>No designs yet.</p>
+        <p>{all.length === 0 ? "No designs yet." : "No design matches; try fewer words or any state."}</p>
       ) : (
         <div className="overflow-x-auto">
           <table className="w-full text-left">
