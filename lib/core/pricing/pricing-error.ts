@@ -1,7 +1,10 @@
 // The one error type pricing throws for input a person must correct; the message names the field.
 export class PricingInputError extends Error {
-  constructor(message: string) {
+  /** the quote field the message belongs on, when there is one (the builder shows it there) */
+  readonly field?: string;
+  constructor(message: string, field?: string) {
     super(message);
+    if (field) this.field = field;
     this.name = "PricingInputError";
   }
 }
