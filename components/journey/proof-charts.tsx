@@ -195,7 +195,7 @@ export function ProofCharts({
             <label htmlFor="pin-body" className="text-sm font-semibold">
               Comment for this stitch
             </label>
-            <textarea id="pin-body" ref={commentRef} rows={2} maxLength={500} className="rounded-md border border-bark/40 px-2 py-2" value={body} aria-describedby="pin-body-count" onChange={(e) => setBody(e.target.value)} />
+            <textarea id="pin-body" ref={commentRef} rows={2} maxLength={500} className="rounded-md border border-bark/40 px-2 py-2" value={body} aria-describedby={body.length >= 300 ? "pin-body-count" : undefined} onChange={(e) => setBody(e.target.value)} />
             <CharCount id="pin-body-count" length={body.length} max={500} showFrom={300} />
             {pinError ? <Notice tone="error">{pinError}</Notice> : null}
             <div>
@@ -224,7 +224,7 @@ export function ProofCharts({
               <label htmlFor="changes-note" className="text-sm font-semibold">
                 A general note (optional)
               </label>
-              <textarea id="changes-note" name="note" rows={3} maxLength={2000} className="rounded-md border border-bark/40 px-2 py-2" defaultValue={changesState.status === "error" ? changesState.values?.note : ""} aria-describedby="changes-note-count" onChange={(e) => setNoteLength(e.target.value.length)} />
+              <textarea id="changes-note" name="note" rows={3} maxLength={2000} className="rounded-md border border-bark/40 px-2 py-2" defaultValue={changesState.status === "error" ? changesState.values?.note : ""} aria-describedby={noteLength >= 1500 ? "changes-note-count" : undefined} onChange={(e) => setNoteLength(e.target.value.length)} />
               <CharCount id="changes-note-count" length={noteLength} max={2000} showFrom={1500} />
               {changesState.status === "error" ? (
                 <Notice tone="error">{changesState.fieldErrors?.note?.join(" ") ?? changesState.message}</Notice>

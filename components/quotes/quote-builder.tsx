@@ -376,6 +376,8 @@ export function QuoteBuilder(props: {
                   id={`yarn-${i}`}
                   className="rounded-md border border-bark/40 bg-white px-3 py-2"
                   value={mat.yarnId}
+                  aria-invalid={fe[`materials.${i}.yarnId`] ? true : undefined}
+                  aria-describedby={fe[`materials.${i}.yarnId`] ? `yarn-${i}-error` : undefined}
                   onChange={(e) => setMaterials((ms) => ms.map((x, j) => (j === i ? { ...x, yarnId: e.target.value } : x)))}
                 >
                   {props.yarns.map((y) => (
@@ -384,6 +386,11 @@ export function QuoteBuilder(props: {
                     </option>
                   ))}
                 </select>
+                {fe[`materials.${i}.yarnId`] ? (
+                  <p id={`yarn-${i}-error`} className="text-sm font-semibold text-madder-dark" role="alert">
+                    {fe[`materials.${i}.yarnId`]!.join(" ")}
+                  </p>
+                ) : null}
               </div>
               <Field
                 label={`Skeins of yarn ${i + 1}`}

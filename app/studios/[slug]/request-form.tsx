@@ -91,6 +91,7 @@ export function RequestForm(props: RequestFormProps) {
   const wearer = watch("wearer");
   const units = watch("units");
   const yarnIds = watch("yarnIds");
+  const notesLength = (watch("notes") ?? "").length;
   // The chosen colours' fibres; with none chosen yet, every fibre the studio offers.
   const chosen = props.colours.filter((c) => (yarnIds ?? []).includes(c.id));
   const fibres = [...new Set((chosen.length ? chosen : props.colours).map((c) => c.fibre))];
@@ -364,10 +365,10 @@ export function RequestForm(props: RequestFormProps) {
           rows={4}
           className="rounded-md border border-bark/40 bg-white px-3 py-2"
           aria-invalid={errors.notes ? true : undefined}
-          aria-describedby={errors.notes ? "notes-count notes-error" : "notes-count"}
+          aria-describedby={[notesLength >= 1500 ? "notes-count" : "", errors.notes ? "notes-error" : ""].filter(Boolean).join(" ") || undefined}
           {...register("notes")}
         />
-        <CharCount id="notes-count" length={(watch("notes") ?? "").length} max={MAX_REQUEST_NOTES} showFrom={1500} />
+        <CharCount id="notes-count" length={notesLength} max={MAX_REQUEST_NOTES} showFrom={1500} />
         <ErrorText id="notes-error" message={errors.notes?.message} />
       </div>
 
