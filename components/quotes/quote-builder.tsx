@@ -104,20 +104,20 @@ export function QuoteBuilder(props: {
 
   function draftBody(): QuoteDraft {
     return {
-    pieces,
-    materials: materials
-      .filter((m) => yarnById.has(m.yarnId))
-      .map((m) => {
-        const y = yarnById.get(m.yarnId)!;
-        return { yarnId: y.id, label: `${y.name}, ${y.colourName} (skeins)`, skeins: m.skeins, unitPriceMinor: y.priceMinor };
-      }),
-    extras: money.extras.map((e) => ({ label: e.label, amountMinor: parse(e.amount) ?? 0 })),
-    designFeeMinor: parse(money.designFee) ?? 0,
-    shippingMinor: parse(money.shipping) ?? 0,
-    discountMinor: parse(money.discount) ?? 0,
-    requestedDate: requestedDate || null,
-    earliestDate: earliestDate || null,
-    rushFeeMinor: money.rushFee.trim() ? (parse(money.rushFee) ?? null) : null,
+      pieces,
+      materials: materials
+        .filter((m) => yarnById.has(m.yarnId))
+        .map((m) => {
+          const y = yarnById.get(m.yarnId)!;
+          return { yarnId: y.id, label: `${y.name}, ${y.colourName} (skeins)`, skeins: m.skeins, unitPriceMinor: y.priceMinor };
+        }),
+      extras: money.extras.map((e) => ({ label: e.label, amountMinor: parse(e.amount) ?? 0 })),
+      designFeeMinor: parse(money.designFee) ?? 0,
+      shippingMinor: parse(money.shipping) ?? 0,
+      discountMinor: parse(money.discount) ?? 0,
+      requestedDate: requestedDate || null,
+      earliestDate: earliestDate || null,
+      rushFeeMinor: money.rushFee.trim() ? (parse(money.rushFee) ?? null) : null,
     };
   }
   const draft = draftBody();
@@ -179,7 +179,12 @@ export function QuoteBuilder(props: {
       const raw = window.localStorage.getItem(keepKey);
       if (!raw) return;
       const k = JSON.parse(raw) as { at: string; state: BuilderState };
-      if (JSON.stringify(k.state) !== savedJson) setKept(k);
+      const st = k?.state;
+      // Only a copy of the shape this builder keeps (an older or damaged one is dropped).
+      const usable =
+        typeof k?.at === "string" && Array.isArray(st?.pieces) && st.pieces.length > 0 && Array.isArray(st.materials) &&
+        Array.isArray(st.money?.extras) && typeof st.message === "string" && typeof st.validUntil === "string";
+      if (usable && JSON.stringify(k.state) !== savedJson) setKept(k);
       else window.localStorage.removeItem(keepKey);
     } catch {
       /* storage unavailable or unreadable: nothing to offer */
