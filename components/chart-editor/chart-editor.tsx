@@ -42,6 +42,7 @@ import type { ChartArea, SizingResult } from "@/lib/core/sizing";
 import type { RoundPinInput, RoundReading } from "@/lib/core/garment";
 import { areaShapeMask, chartDarn, hasOutsideCells, matchArea, outsideMessage, storedPins } from "@/lib/core/design-garment";
 import { Notice } from "@/components/ui/notice";
+import { useUnsavedChanges } from "@/components/ui/use-unsaved-changes";
 import { ChartCanvas, type CellMark } from "./chart-canvas";
 import {
   autosaveDelay,
@@ -385,6 +386,13 @@ export function ChartEditor(props: ChartEditorProps) {
     }, autosaveDelay({ touch: touchEdit.current, dirtySinceMs: dirtySince.current, nowMs: now }));
     return () => clearTimeout(t);
   }, [revision, saveNow]);
+  // An edit still within the autosave delay (or not saved): ask before leaving, and save it at once
+  // when the page is hidden or left (pagehide / visibilitychange).
+  useUnsavedChanges(["dirty", "saving", "error", "conflict"].includes(save.kind), {
+    onLeave: () => {
+      if (saveRef.current.kind === "dirty" && !savingRef.current) void saveNowRef.current();
+    },
+  });
 
   const versions = useQuery({
     queryKey: ["design-versions", props.designId],

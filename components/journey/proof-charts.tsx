@@ -5,6 +5,8 @@
 import { useActionState, useRef, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
+import { CharCount } from "@/components/ui/char-count";
+import { useUnsavedChanges } from "@/components/ui/use-unsaved-changes";
 import { idleState, type ActionState } from "@/lib/action-state";
 import type { PinnedComment } from "@/lib/schemas/proofs";
 import { approveProofAction, requestChangesAction } from "./proof-actions";
@@ -61,6 +63,10 @@ export function ProofCharts({
   const commentRef = useRef<HTMLTextAreaElement>(null);
   const [changesState, changesAction, changesPending] = useActionState<ActionState<{ id: string }>, FormData>(requestChangesAction, idleState);
   const [approveState, approveAction, approvePending] = useActionState<ActionState<{ id: string }>, FormData>(approveProofAction, idleState);
+
+  const [noteLength, setNoteLength] = useState(0);
+  // A half-typed comment, pinned comments not sent yet, or a typed note: ask before leaving.
+  useUnsavedChanges(changesState.status !== "ok" && approveState.status !== "ok" && (body.trim() !== "" || pending.length > 0 || noteLength > 0));
 
   const pinnedOld = existing.filter((e) => e.row !== null && e.stitch !== null && e.chartIndex !== null);
 
@@ -189,7 +195,8 @@ export function ProofCharts({
             <label htmlFor="pin-body" className="text-sm font-semibold">
               Comment for this stitch
             </label>
-            <textarea id="pin-body" ref={commentRef} rows={2} maxLength={500} className="rounded-md border border-bark/40 px-2 py-2" value={body} onChange={(e) => setBody(e.target.value)} />
+            <textarea id="pin-body" ref={commentRef} rows={2} maxLength={500} className="rounded-md border border-bark/40 px-2 py-2" value={body} aria-describedby={body.length >= 300 ? "pin-body-count" : undefined} onChange={(e) => setBody(e.target.value)} />
+            <CharCount id="pin-body-count" length={body.length} max={500} showFrom={300} />
             {pinError ? <Notice tone="error">{pinError}</Notice> : null}
             <div>
               <Button variant="secondary" onClick={pin}>
@@ -217,7 +224,8 @@ export function ProofCharts({
               <label htmlFor="changes-note" className="text-sm font-semibold">
                 A general note (optional)
               </label>
-              <textarea id="changes-note" name="note" rows={3} maxLength={2000} className="rounded-md border border-bark/40 px-2 py-2" defaultValue={changesState.status === "error" ? changesState.values?.note : ""} />
+              <textarea id="changes-note" name="note" rows={3} maxLength={2000} className="rounded-md border border-bark/40 px-2 py-2" defaultValue={changesState.status === "error" ? changesState.values?.note : ""} aria-describedby={noteLength >= 1500 ? "changes-note-count" : undefined} onChange={(e) => setNoteLength(e.target.value.length)} />
+              <CharCount id="changes-note-count" length={noteLength} max={2000} showFrom={1500} />
               {changesState.status === "error" ? (
                 <Notice tone="error">{changesState.fieldErrors?.note?.join(" ") ?? changesState.message}</Notice>
               ) : null}

@@ -4,12 +4,22 @@
 import { useQuery } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { useEffect, useState } from "react";
+import { Providers } from "@/components/providers";
 
 const PAID = new Set(["paid", "partially_refunded", "refunded"]);
 const POLL_MS = 2000;
 const GIVE_UP_MS = 2 * 60_000;
 
-export function AwaitPayment({ commissionId, kind }: { commissionId: string; kind: "deposit" | "balance" }) {
+/** Carries its own query client: the portal's layout has none (without it the page fails to render). */
+export function AwaitPayment(props: { commissionId: string; kind: "deposit" | "balance" }) {
+  return (
+    <Providers>
+      <AwaitPaymentPoll {...props} />
+    </Providers>
+  );
+}
+
+function AwaitPaymentPoll({ commissionId, kind }: { commissionId: string; kind: "deposit" | "balance" }) {
   const router = useRouter();
   const [startedAt] = useState(() => Date.now());
   const [gaveUp, setGaveUp] = useState(false);

@@ -2,10 +2,14 @@
 // The quote builder: every change is priced at once in the browser by the same pure core the
 // server uses (composeQuote), with a note of what changed since the last saved version.
 import { useRouter } from "next/navigation";
-import { useMemo, useState } from "react";
+import { useEffect, useMemo, useRef, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { CharCount } from "@/components/ui/char-count";
+import { useUnsavedChanges } from "@/components/ui/use-unsaved-changes";
+import { fieldErrorsOf, MAX_QUOTE_MESSAGE, quoteDraftSchema } from "@/lib/schemas/quotes";
+import { quoteBuilderFieldName } from "./quote-field-names";
 import { GuardRailNote } from "./guard-rail-note";
 import { getGuardRailWarnings } from "@/lib/core/pricing/guard-rails";
 import { DesignYarnPanel, type DesignYarnPanelData } from "./design-yarn-panel";
@@ -50,6 +54,18 @@ function TaxCategorySelect(props: { id: string; label: string; value: TaxCategor
     </div>
   );
 }
+/** What the builder holds as typed (kept on this device until saved). */
+interface BuilderState {
+  pieces: PieceFeatures[];
+  materials: { yarnId: string; skeins: number; taxCategory?: TaxCategory | null }[];
+  money: MoneyText;
+  requestedDate: string;
+  earliestDate: string;
+  validUntil: string;
+  message: string;
+}
+/** the money text boxes → the field names the server reports on */
+const MONEY_FIELD: Record<string, string> = { designFee: "designFeeMinor", shipping: "shippingMinor", discount: "discountMinor", rushFee: "rushFeeMinor" };
 
 export function QuoteBuilder(props: {
   commissionId: string;
@@ -90,6 +106,9 @@ export function QuoteBuilder(props: {
   const [message, setMessage] = useState(props.initialMessage);
   const [status, setStatus] = useState<{ tone: "error" | "success"; text: string; fieldErrors?: Record<string, string[]> } | null>(null);
   const [busy, setBusy] = useState(false);
+  /** a quote kept on this device that was never saved, offered back once */
+  const [kept, setKept] = useState<{ at: string; state: BuilderState } | null>(null);
+  const formRef = useRef<HTMLFormElement>(null);
 
   const parse = (text: string) => (text.trim() === "" ? 0 : majorToMinor(text, cur));
   const moneyErrors: Record<string, string> = {};
@@ -97,40 +116,56 @@ export function QuoteBuilder(props: {
     if (parse(v) === null) moneyErrors[k] = "Enter an amount like 12 or 12.50.";
   }
   money.extras.forEach((e, i) => {
-    if (parse(e.amount) === null) moneyErrors[`extras.${i}`] = "Enter an amount like 4 or 4.50.";
+    if (parse(e.amount) === null) moneyErrors[`extras.${i}.amountMinor`] = "Enter an amount like 4 or 4.50.";
   });
 
   const yarnById = useMemo(() => new Map(props.yarns.map((y) => [y.id, y])), [props.yarns]);
-  const draft: QuoteDraft = {
-    pieces,
-    materials: materials
-      .filter((m) => yarnById.has(m.yarnId))
-      .map((m) => {
-        const y = yarnById.get(m.yarnId)!;
-        return { yarnId: y.id, label: `${y.name}, ${y.colourName} (skeins)`, skeins: m.skeins, unitPriceMinor: y.priceMinor, taxCategory: m.taxCategory ?? null };
-      }),
-    extras: money.extras.map((e) => ({ label: e.label, amountMinor: parse(e.amount) ?? 0, taxCategory: e.taxCategory ?? null })),
-    labourTaxCategory,
-    designFeeMinor: parse(money.designFee) ?? 0,
-    shippingMinor: parse(money.shipping) ?? 0,
-    discountMinor: parse(money.discount) ?? 0,
-    requestedDate: requestedDate || null,
-    earliestDate: earliestDate || null,
-    rushFeeMinor: money.rushFee.trim() ? (parse(money.rushFee) ?? null) : null,
-  };
+  // What the server will check, checked here first with the same schema: the live price waits for it.
+  const body = { ...draftBody(), materials, validUntil: validUntil || null, messageToClient: message };
+  const checked = quoteDraftSchema.safeParse(body);
+  const clientErrors: Record<string, string[]> = checked.success ? {} : fieldErrorsOf(checked.error);
+  for (const [k, v] of Object.entries(moneyErrors)) clientErrors[MONEY_FIELD[k] ?? k] = [v];
+  const inputReady = Object.keys(clientErrors).length === 0;
+
+  function draftBody(): QuoteDraft {
+    return {
+      pieces,
+      materials: materials
+        .filter((m) => yarnById.has(m.yarnId))
+        .map((m) => {
+          const y = yarnById.get(m.yarnId)!;
+          return { yarnId: y.id, label: `${y.name}, ${y.colourName} (skeins)`, skeins: m.skeins, unitPriceMinor: y.priceMinor, taxCategory: m.taxCategory ?? null };
+        }),
+      extras: money.extras.map((e) => ({ label: e.label, amountMinor: parse(e.amount) ?? 0, taxCategory: e.taxCategory ?? null })),
+      labourTaxCategory,
+      designFeeMinor: parse(money.designFee) ?? 0,
+      shippingMinor: parse(money.shipping) ?? 0,
+      discountMinor: parse(money.discount) ?? 0,
+      requestedDate: requestedDate || null,
+      earliestDate: earliestDate || null,
+      rushFeeMinor: money.rushFee.trim() ? (parse(money.rushFee) ?? null) : null,
+    };
+  }
+  const draft = draftBody();
 
   let preview: ReturnType<typeof composeQuote> | null = null;
   let previewError: string | null = null;
   // The deposit as the server will store it: fitted to what the payment provider can charge.
   let depositNote: string | null = null;
-  try {
-    preview = composeQuote(draft, policy);
-    const fitted = withProviderDeposit(preview.quote);
-    preview = { ...preview, quote: fitted.quote };
-    depositNote = fitted.note;
-    if (fitted.problem && isProviderCurrency(preview.quote.currency)) previewError = fitted.problem;
-  } catch (err) {
-    previewError = (err as Error).message;
+  // Nothing is priced until every field reads correctly (no "£15.7 M" from a half-typed count).
+  if (inputReady) {
+    try {
+      preview = composeQuote(draft, policy);
+      const fitted = withProviderDeposit(preview.quote);
+      preview = { ...preview, quote: fitted.quote };
+      depositNote = fitted.note;
+      if (fitted.problem && isProviderCurrency(preview.quote.currency)) previewError = fitted.problem;
+    } catch (err) {
+      previewError = (err as Error).message;
+      // A pricing refusal that belongs to one field (the discount) is shown on it.
+      const field = (err as { field?: string }).field;
+      if (field) clientErrors[field] = [previewError];
+    }
   }
   let changeNote: string | null = null;
   let diffNote: string | null = null;
@@ -157,34 +192,111 @@ export function QuoteBuilder(props: {
   const setFeature = (i: number, key: keyof PieceFeatures, value: string | boolean) =>
     setPieces((ps) => ps.map((p, j) => (j === i ? { ...p, [key]: typeof value === "boolean" ? value : value === "" ? 0 : Math.max(0, Number(value)) } : p)));
 
+  // The state as typed, to tell unsaved changes and to keep a copy on this device.
+  const state: BuilderState = { pieces, materials, money, requestedDate, earliestDate, validUntil, message };
+  const stateJson = JSON.stringify(state);
+  const [savedJson, setSavedJson] = useState(stateJson);
+  const dirty = stateJson !== savedJson;
+  useUnsavedChanges(dirty);
+  const keepKey = `darnwell:quote-draft:${props.commissionId}`;
+  // Offer back a quote left unsaved on this device (once, on opening).
+  useEffect(() => {
+    try {
+      const raw = window.localStorage.getItem(keepKey);
+      if (!raw) return;
+      const k = JSON.parse(raw) as { at: string; state: BuilderState };
+      const st = k?.state;
+      // Only a copy of the shape this builder keeps (an older or damaged one is dropped).
+      const usable =
+        typeof k?.at === "string" && Array.isArray(st?.pieces) && st.pieces.length > 0 && Array.isArray(st.materials) &&
+        Array.isArray(st.money?.extras) && typeof st.message === "string" && typeof st.validUntil === "string";
+      if (usable && JSON.stringify(k.state) !== savedJson) setKept(k);
+      else window.localStorage.removeItem(keepKey);
+    } catch {
+      /* storage unavailable or unreadable: nothing to offer */
+    }
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, []);
+  // Keep every unsaved change on this device, so a closed tab or a crash loses nothing.
+  useEffect(() => {
+    if (!dirty || kept) return;
+    const t = setTimeout(() => {
+      try {
+        window.localStorage.setItem(keepKey, JSON.stringify({ at: new Date().toISOString(), state: JSON.parse(stateJson) }));
+      } catch {
+        /* full or unavailable: the leave-page question still guards */
+      }
+    }, 400);
+    return () => clearTimeout(t);
+  }, [dirty, kept, keepKey, stateJson]);
+
+  function restore(k: BuilderState) {
+    setPieces(k.pieces);
+    setMaterials(k.materials);
+    setMoney(k.money);
+    setRequestedDate(k.requestedDate);
+    setEarliestDate(k.earliestDate);
+    setValidUntil(k.validUntil);
+    setMessage(k.message);
+    setKept(null);
+  }
+  function discardKept() {
+    window.localStorage.removeItem(keepKey);
+    setKept(null);
+  }
+
+  /** Shows errors on their fields, says which in the status (announced), and scrolls to the first. */
+  function showFieldErrors(text: string, fieldErrors: Record<string, string[]>) {
+    const names = [...new Set(Object.keys(fieldErrors).map(quoteBuilderFieldName))];
+    setStatus({ tone: "error", text: names.length ? `${text} Check ${names.join(", ")}.` : text, fieldErrors });
+    requestAnimationFrame(() => {
+      const first = formRef.current?.querySelector<HTMLElement>('[aria-invalid="true"]');
+      if (first) {
+        first.scrollIntoView({ block: "center" });
+        first.focus({ preventScroll: true });
+      }
+    });
+  }
+
   async function save(send: boolean) {
-    if (Object.keys(moneyErrors).length) {
-      setStatus({ tone: "error", text: "Some amounts need attention." });
+    if (!inputReady || !preview) {
+      if (Object.keys(clientErrors).length) showFieldErrors("Some fields need a correction before the quote can be saved.", clientErrors);
+      else setStatus({ tone: "error", text: previewError ?? "The quote cannot be priced yet." });
       return;
     }
     setBusy(true);
     setStatus(null);
+    const sentJson = stateJson;
     try {
       const res = await fetch(`/api/commissions/${props.commissionId}/quotes`, {
         method: "POST",
         headers: { "content-type": "application/json" },
-        body: JSON.stringify({ ...draft, materials, validUntil: validUntil || null, messageToClient: message }),
+        body: JSON.stringify(body),
       });
-      const body = (await res.json()) as { version?: { id: string; number: number }; error?: { message: string; fieldErrors?: Record<string, string[]> } };
-      if (!res.ok || !body.version) {
-        setStatus({ tone: "error", text: body.error?.message ?? "The quote could not be saved.", fieldErrors: body.error?.fieldErrors });
+      const answer = (await res.json()) as { version?: { id: string; number: number }; error?: { message: string; fieldErrors?: Record<string, string[]> } };
+      if (!res.ok || !answer.version) {
+        const fieldErrors = answer.error?.fieldErrors ?? {};
+        if (Object.keys(fieldErrors).length) showFieldErrors(answer.error?.message ?? "The quote could not be saved.", fieldErrors);
+        else setStatus({ tone: "error", text: answer.error?.message ?? "The quote could not be saved." });
         return;
       }
+      const saved = answer.version;
+      setSavedJson(sentJson);
+      try {
+        window.localStorage.removeItem(keepKey);
+      } catch {
+        /* nothing kept */
+      }
       if (send) {
-        const sent = await fetch(`/api/quotes/${body.version.id}/send`, { method: "POST" });
+        const sent = await fetch(`/api/quotes/${saved.id}/send`, { method: "POST" });
         const sb = (await sent.json()) as { error?: { message: string } };
         if (!sent.ok) {
           setStatus({ tone: "error", text: sb.error?.message ?? "The quote was saved but not sent." });
           return;
         }
-        setStatus({ tone: "success", text: `Version ${body.version.number} sent to the client.` });
+        setStatus({ tone: "success", text: `Version ${saved.number} sent to the client.` });
       } else {
-        setStatus({ tone: "success", text: `Draft version ${body.version.number} saved.` });
+        setStatus({ tone: "success", text: `Draft version ${saved.number} saved.` });
       }
       router.refresh();
     } catch {
@@ -194,17 +306,35 @@ export function QuoteBuilder(props: {
     }
   }
 
-  const fe = status?.fieldErrors ?? {};
+  // Errors as typed (checked here) first; the server's last answer for what only it can tell.
+  const fe: Record<string, string[] | undefined> = { ...(status?.fieldErrors ?? {}), ...clientErrors };
+  const saveBlocked = busy ? null : !inputReady ? "Correct the marked fields to save." : !preview ? (previewError ?? "The quote cannot be priced yet.") : null;
   return (
     <div className="grid gap-6 lg:grid-cols-[3fr_2fr]">
       <form
         aria-label="Quote builder"
+        ref={formRef}
         className="flex flex-col gap-6"
         onSubmit={(e) => {
           e.preventDefault();
           void save(false);
         }}
       >
+        {kept ? (
+          <Notice tone="info" title="A quote you did not save">
+            <p>
+              Changes made on this device on {new Date(kept.at).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" })} were never saved.
+            </p>
+            <div className="mt-2 flex flex-wrap gap-3">
+              <Button variant="secondary" onClick={() => restore(kept.state)}>
+                Restore those changes
+              </Button>
+              <Button variant="quiet" onClick={discardKept}>
+                Discard them
+              </Button>
+            </div>
+          </Notice>
+        ) : null}
         <fieldset className="flex flex-col gap-4">
           <legend className="mb-2 text-xl">Pieces and their work</legend>
           <p className="text-sm text-bark">
@@ -277,6 +407,8 @@ export function QuoteBuilder(props: {
                   id={`yarn-${i}`}
                   className="rounded-md border border-bark/40 bg-white px-3 py-2"
                   value={mat.yarnId}
+                  aria-invalid={fe[`materials.${i}.yarnId`] ? true : undefined}
+                  aria-describedby={fe[`materials.${i}.yarnId`] ? `yarn-${i}-error` : undefined}
                   onChange={(e) => setMaterials((ms) => ms.map((x, j) => (j === i ? { ...x, yarnId: e.target.value } : x)))}
                 >
                   {props.yarns.map((y) => (
@@ -285,6 +417,11 @@ export function QuoteBuilder(props: {
                     </option>
                   ))}
                 </select>
+                {fe[`materials.${i}.yarnId`] ? (
+                  <p id={`yarn-${i}-error`} className="text-sm font-semibold text-madder-dark" role="alert">
+                    {fe[`materials.${i}.yarnId`]!.join(" ")}
+                  </p>
+                ) : null}
               </div>
               <Field
                 label={`Skeins of yarn ${i + 1}`}
@@ -321,18 +458,18 @@ export function QuoteBuilder(props: {
         <fieldset className="grid gap-3 sm:grid-cols-2">
           <legend className="mb-2 text-xl">Fees, shipping and discount ({cur})</legend>
           <TaxCategorySelect id="labour-tax" label="Tax on the labour (all stages)" policy={policy} value={labourTaxCategory} onChange={setLabourTaxCategory} />
-          <Field label="Design fee" inputMode="decimal" value={money.designFee} onChange={(e) => setMoney({ ...money, designFee: e.target.value })} errors={moneyErrors.designFee ? [moneyErrors.designFee] : undefined} />
-          <Field label="Shipping" inputMode="decimal" value={money.shipping} onChange={(e) => setMoney({ ...money, shipping: e.target.value })} errors={moneyErrors.shipping ? [moneyErrors.shipping] : undefined} />
-          <Field label="Discount" hint="Off the work and materials, not shipping." inputMode="decimal" value={money.discount} onChange={(e) => setMoney({ ...money, discount: e.target.value })} errors={moneyErrors.discount ? [moneyErrors.discount] : undefined} />
+          <Field label="Design fee" inputMode="decimal" value={money.designFee} onChange={(e) => setMoney({ ...money, designFee: e.target.value })} errors={fe.designFeeMinor} />
+          <Field label="Shipping" inputMode="decimal" value={money.shipping} onChange={(e) => setMoney({ ...money, shipping: e.target.value })} errors={fe.shippingMinor} />
+          <Field label="Discount" hint="Off the work and materials, not shipping." inputMode="decimal" value={money.discount} onChange={(e) => setMoney({ ...money, discount: e.target.value })} errors={fe.discountMinor} />
           {money.extras.map((x, i) => (
             <div key={i} className="flex flex-wrap items-end gap-2 sm:col-span-2">
-              <Field label={`Extra ${i + 1}`} value={x.label} onChange={(e) => setMoney({ ...money, extras: money.extras.map((y, j) => (j === i ? { ...y, label: e.target.value } : y)) })} />
+              <Field label={`Extra ${i + 1}`} errors={fe[`extras.${i}.label`]} value={x.label} onChange={(e) => setMoney({ ...money, extras: money.extras.map((y, j) => (j === i ? { ...y, label: e.target.value } : y)) })} />
               <Field
                 label={`Price of extra ${i + 1}`}
                 inputMode="decimal"
                 value={x.amount}
                 onChange={(e) => setMoney({ ...money, extras: money.extras.map((y, j) => (j === i ? { ...y, amount: e.target.value } : y)) })}
-                errors={moneyErrors[`extras.${i}`] ? [moneyErrors[`extras.${i}`]] : undefined}
+                errors={fe[`extras.${i}.amountMinor`]}
               />
               <TaxCategorySelect
                 id={`extra-tax-${i}`}
@@ -355,11 +492,11 @@ export function QuoteBuilder(props: {
 
         <fieldset className="grid gap-3 sm:grid-cols-3">
           <legend className="mb-2 text-xl">Dates</legend>
-          <Field label="Client needs it by" type="date" value={requestedDate} onChange={(e) => setRequestedDate(e.target.value)} />
+          <Field label="Client needs it by" type="date" errors={fe.requestedDate} value={requestedDate} onChange={(e) => setRequestedDate(e.target.value)} />
           <Field
             label="Earliest date we can offer"
             hint={`A rush fee applies when the client needs it sooner.${props.scheduleEarliest ? ` The schedule can promise ${props.scheduleEarliest} after the work already booked (shipping not included).` : ""}`}
-            type="date" value={earliestDate} onChange={(e) => setEarliestDate(e.target.value)} />
+            type="date" errors={fe.earliestDate} value={earliestDate} onChange={(e) => setEarliestDate(e.target.value)} />
           <Field
             label={`Rush fee (${cur})`}
             hint={
@@ -368,7 +505,7 @@ export function QuoteBuilder(props: {
                 <GuardRailNote field="rushFee" warnings={rushWarnings} />
               </>
             }
-            inputMode="decimal" value={money.rushFee} onChange={(e) => setMoney({ ...money, rushFee: e.target.value })} errors={moneyErrors.rushFee ? [moneyErrors.rushFee] : undefined} />
+            inputMode="decimal" value={money.rushFee} onChange={(e) => setMoney({ ...money, rushFee: e.target.value })} errors={fe.rushFeeMinor} />
           <Field label="Quote valid until" hint="Empty: the studio's default." type="date" value={validUntil} onChange={(e) => setValidUntil(e.target.value)} errors={fe.validUntil} />
         </fieldset>
 
@@ -376,17 +513,40 @@ export function QuoteBuilder(props: {
           <label htmlFor="quote-message" className="font-semibold">
             Message to the client
           </label>
-          <textarea id="quote-message" rows={3} className="rounded-md border border-bark/40 px-3 py-2" value={message} onChange={(e) => setMessage(e.target.value)} />
+          <textarea
+            id="quote-message"
+            rows={3}
+            className={`rounded-md border px-3 py-2 ${fe.messageToClient ? "border-madder" : "border-bark/40"}`}
+            value={message}
+            aria-invalid={fe.messageToClient ? true : undefined}
+            aria-describedby={fe.messageToClient ? "quote-message-count quote-message-error" : "quote-message-count"}
+            onChange={(e) => setMessage(e.target.value)}
+          />
+          <CharCount id="quote-message-count" length={message.trim().length} max={MAX_QUOTE_MESSAGE} />
+          {fe.messageToClient ? (
+            <p id="quote-message-error" className="text-sm font-semibold text-madder-dark" role="alert">
+              {fe.messageToClient.join(" ")}
+            </p>
+          ) : null}
         </div>
 
-        {status ? <Notice tone={status.tone}>{status.text}</Notice> : null}
-        <div className="flex flex-wrap gap-3">
-          <Button type="submit" variant="secondary" disabled={busy || !preview}>
+        <div aria-live="polite" role="status" data-testid="quote-status">
+          {status ? <Notice tone={status.tone}>{status.text}</Notice> : null}
+        </div>
+        <div className="flex flex-wrap items-center gap-3">
+          <Button type="submit" variant="secondary" disabled={busy} aria-describedby={saveBlocked ? "quote-save-blocked" : undefined}>
             Save draft
           </Button>
-          <Button disabled={busy || !preview} onClick={() => void save(true)}>
+          <Button disabled={busy} aria-describedby={saveBlocked ? "quote-save-blocked" : undefined} onClick={() => void save(true)}>
             Save and send to the client
           </Button>
+          {saveBlocked ? (
+            <p id="quote-save-blocked" className="text-sm font-semibold text-madder-dark" data-testid="quote-save-blocked">
+              {saveBlocked}
+            </p>
+          ) : dirty ? (
+            <p className="text-sm text-bark">Not saved yet.</p>
+          ) : null}
         </div>
       </form>
 
@@ -396,6 +556,11 @@ export function QuoteBuilder(props: {
         </h2>
         <div aria-live="polite">
           {previewError ? <Notice tone="error">{previewError}</Notice> : null}
+          {!inputReady ? (
+            <p className="text-bark" data-testid="quote-total-waiting">
+              <span aria-hidden="true">— </span>The price shows once the marked fields are corrected.
+            </p>
+          ) : null}
           {preview ? (
             <>
               {changeNote ? (

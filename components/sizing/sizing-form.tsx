@@ -6,6 +6,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useId, useMemo, useState } from "react";
 import { useForm } from "react-hook-form";
+import { useUnsavedChanges } from "@/components/ui/use-unsaved-changes";
 import { ApiError, api } from "@/components/production/api";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
@@ -65,6 +66,10 @@ export function SizingForm(props: {
   const [status, setStatus] = useState<{ tone: "error" | "success"; text: string } | null>(null);
   const [serverErrors, setServerErrors] = useState<Record<string, string[]>>({});
   const live = useMemo(() => sizeForm(garment, values), [garment, JSON.stringify(values)]); // eslint-disable-line react-hooks/exhaustive-deps
+  // Unsaved edits: what the form holds now against what was last saved (as first shown).
+  const valuesJson = JSON.stringify(values);
+  const [savedJson, setSavedJson] = useState(valuesJson);
+  useUnsavedChanges(valuesJson !== savedJson);
   const errorsFor = (name: string): string[] | undefined => serverErrors[name] ?? live.fieldErrors[name];
   const unit = values.unit;
   const sizes = STANDARD_SIZES[garment];
@@ -72,8 +77,10 @@ export function SizingForm(props: {
   const submit = form.handleSubmit(async (v) => {
     setStatus(null);
     setServerErrors({});
+    const sentJson = JSON.stringify(form.getValues());
     try {
       await api(`/api/commissions/${props.commissionId}/sizing`, { method: "PUT", body: v });
+      setSavedJson(sentJson);
       setStatus({ tone: "success", text: "Sizing saved. New designs open at these chart sizes, and the yarn estimate uses them." });
       router.refresh();
     } catch (err) {

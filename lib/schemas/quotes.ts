@@ -6,6 +6,17 @@ import { taxCategorySchema } from "./tax-settings";
 const count = (max = 1_000_000) => z.number({ error: "Enter a number." }).finite().min(0, "Use 0 or more.").max(max, `At most ${max}.`);
 const minor = z.number({ error: "Enter an amount." }).int("Whole minor units only.").min(0, "Use 0 or more.").max(100_000_000, "That amount is too large.");
 const isoDate = calendarDate("Use a date like 2027-01-31.");
+export const MAX_QUOTE_MESSAGE = 2000;
+
+/** zod issues → { "field.path": ["message", …] }, the same keys the server answers with (browser-safe). */
+export function fieldErrorsOf(error: z.ZodError): Record<string, string[]> {
+  const out: Record<string, string[]> = {};
+  for (const issue of error.issues) {
+    const key = issue.path.length ? issue.path.join(".") : "_form";
+    (out[key] ??= []).push(issue.message);
+  }
+  return out;
+}
 
 export const pieceFeaturesSchema = z.object({
   label: safeString().trim().min(1, "Name the piece.").max(80),
@@ -40,7 +51,7 @@ export const quoteDraftSchema = z.object({
   earliestDate: isoDate.nullable().optional(),
   rushFeeMinor: minor.nullable().optional(),
   validUntil: isoDate.nullable().optional(),
-  messageToClient: safeString().trim().max(2000).default(""),
+  messageToClient: safeString().trim().max(MAX_QUOTE_MESSAGE, "Keep the message to 2,000 characters or fewer.").default(""),
 });
 
 export type QuoteDraftInput = z.input<typeof quoteDraftSchema>;

@@ -10,6 +10,7 @@ import { CM_PER_IN, inToCm, roundTo } from "@/lib/core/sizing/units";
 export const GARMENTS = ["mittens", "hat", "pullover"] as const;
 export const WEARERS = ["adult", "teen", "child", "baby"] as const;
 export const MAX_REFERENCE_PHOTOS = 6;
+export const MAX_REQUEST_NOTES = 2000;
 
 /** The measurements asked for each garment (names from lib/core/sizing). */
 export const REQUEST_MEASUREMENTS: Record<(typeof GARMENTS)[number], readonly MeasurementName[]> = {
@@ -77,7 +78,7 @@ export const requestFields = z.object({
   budget: safeString()
     .trim()
     .refine((v) => v === "" || /^\d{1,7}([.]\d{1,2})?$/.test(v.replace(/,/g, "")), "Enter an amount like 120 or 120.50, or leave it empty."),
-  notes: text(2000, "notes"),
+  notes: text(MAX_REQUEST_NOTES, "notes"),
   uploadIds: z.array(z.string().uuid()).max(MAX_REFERENCE_PHOTOS, `Add at most ${MAX_REFERENCE_PHOTOS} photos.`),
 });
 
@@ -126,3 +127,41 @@ export const requestDraftSchema = requestFields.partial().extend({
   submitted: z.boolean().optional(),
 });
 export type RequestDraft = z.output<typeof requestDraftSchema>;
+
+export type DraftFieldErrors = Record<string, string[]>;
+
+/**
+ * Reads a draft field by field: each field is checked on its own, so one invalid field never stops
+ * the rest from being kept. Returns the valid fields and, for each invalid one, its message (by the
+ * form's field name, like "lettering" or "measurements.handLength"). Unknown keys are dropped.
+ */
+export function parseDraftLeniently(data: unknown): { data: RequestDraft; invalid: DraftFieldErrors } {
+  const out: Record<string, unknown> = {};
+  const invalid: DraftFieldErrors = {};
+  if (data === null || typeof data !== "object" || Array.isArray(data)) return { data: {}, invalid: {} };
+  const shape = requestDraftSchema.shape;
+  for (const [key, value] of Object.entries(data as Record<string, unknown>)) {
+    if (!Object.hasOwn(shape, key) || value === undefined) continue;
+    if (key === "measurements" && value !== null && typeof value === "object" && !Array.isArray(value)) {
+      // Each measurement on its own too: a mistyped hand length keeps the hand circumference.
+      const kept: Record<string, string> = {};
+      for (const [name, raw] of Object.entries(value as Record<string, unknown>).slice(0, 12)) {
+        const one = safeString().max(12, "Keep a measurement to 12 characters or fewer.").safeParse(raw);
+        if (one.success && name.length <= 60) kept[name] = one.data;
+        else (invalid[`measurements.${name.slice(0, 60)}`] ??= []).push(one.success ? "Check this measurement." : one.error.issues[0]!.message);
+      }
+      out.measurements = kept;
+      continue;
+    }
+    const r = shape[key as keyof typeof shape].safeParse(value);
+    if (r.success) {
+      out[key] = r.data;
+    } else {
+      for (const issue of r.error.issues) {
+        const path = [key, ...issue.path.map(String)].join(".");
+        (invalid[path] ??= []).push(issue.message);
+      }
+    }
+  }
+  return { data: out as RequestDraft, invalid };
+}

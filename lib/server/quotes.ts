@@ -170,8 +170,8 @@ function compose(draft: QuoteDraft, policy: QuotePolicy) {
   try {
     return composeQuote(draft, policy);
   } catch (err) {
-    if (err instanceof PricingInputError) throw new AppError(422, "invalid_quote", err.message, err.field ? { [err.field]: [err.message] } : undefined);
-    if (err instanceof RangeError) throw new AppError(422, "invalid_quote", err.message);
+    if (err instanceof PricingInputError && err.field) throw new AppError(422, "invalid_quote", err.message, { [err.field]: [err.message] });
+    if (err instanceof PricingInputError || err instanceof RangeError) throw new AppError(422, "invalid_quote", err.message);
     throw err;
   }
 }

@@ -9,7 +9,7 @@ import { getMotif } from "@/lib/core/chart/motifs";
 import { env } from "@/lib/env";
 import { GARMENT_LABELS } from "@/lib/format";
 import { majorToMinor } from "@/lib/schemas/money";
-import { MAX_REFERENCE_PHOTOS, requestDraftSchema, requestSchema, type RequestDraft } from "@/lib/schemas/request";
+import { MAX_REFERENCE_PHOTOS, parseDraftLeniently, requestSchema, type DraftFieldErrors, type RequestDraft } from "@/lib/schemas/request";
 import { requestToClientMessage, requestToStudioMessage } from "@/templates/email/journey";
 import type { Actor } from "./authz";
 import { AppError, validationError } from "./errors";
@@ -35,25 +35,47 @@ export async function loadDraft(studioId: string, token: string | undefined | nu
     .from(requestDrafts)
     .where(and(eq(requestDrafts.tokenHash, hashToken(token)), eq(requestDrafts.studioId, studioId)));
   if (!row) return null;
-  const parsed = requestDraftSchema.safeParse(row.data);
-  return { id: row.id, studioId: row.studioId, data: parsed.success ? parsed.data : {}, uploadIds: row.uploadIds, userId: row.userId };
+  // Field by field, so a value that has gone stale (a "needed by" date now past) loses only itself.
+  const { data } = parseDraftLeniently(row.data);
+  return { id: row.id, studioId: row.studioId, data, uploadIds: row.uploadIds, userId: row.userId };
 }
 
-/** Saves what the form holds now (validated loosely: a draft may be half-filled, never oversized). */
-export async function saveDraft(studioId: string, token: string, data: unknown, userId: string | null): Promise<DraftRow> {
-  const parsed = requestDraftSchema.safeParse(data);
-  if (!parsed.success) throw validationError(parsed.error);
+/**
+ * Saves what the form holds now, field by field: each valid field is kept, each invalid one keeps
+ * what was saved before (if anything) and is reported, so one mistyped field never loses the rest.
+ */
+export async function saveDraft(
+  studioId: string,
+  token: string,
+  data: unknown,
+  userId: string | null,
+): Promise<DraftRow & { invalid: DraftFieldErrors }> {
+  const { data: valid, invalid } = parseDraftLeniently(data);
+  let merged: RequestDraft = valid;
+  if (Object.keys(invalid).length) {
+    const previous = await loadDraft(studioId, token);
+    const keep: Record<string, unknown> = {};
+    for (const path of Object.keys(invalid)) {
+      const [top, sub] = path.split(".");
+      const before = (previous?.data as Record<string, unknown> | undefined)?.[top!];
+      if (sub && top === "measurements") {
+        const old = (before as Record<string, string> | undefined)?.[sub];
+        if (old !== undefined) keep.measurements = { ...(merged.measurements ?? {}), ...(keep.measurements as object), [sub]: old };
+      } else if (before !== undefined) keep[top!] = before;
+    }
+    merged = { ...valid, ...keep } as RequestDraft;
+  }
   const [row] = await db
     .insert(requestDrafts)
-    .values({ studioId, tokenHash: hashToken(token), data: parsed.data, userId })
+    .values({ studioId, tokenHash: hashToken(token), data: merged, userId })
     .onConflictDoUpdate({
       target: requestDrafts.tokenHash,
-      set: { data: parsed.data, updatedAt: new Date(), ...(userId ? { userId } : {}) },
+      set: { data: merged, updatedAt: new Date(), ...(userId ? { userId } : {}) },
       setWhere: eq(requestDrafts.studioId, studioId),
     })
     .returning();
   if (!row) throw new AppError(409, "draft_conflict", "That draft belongs to another studio.");
-  return { id: row.id, studioId, data: parsed.data, uploadIds: row.uploadIds, userId: row.userId };
+  return { id: row.id, studioId, data: merged, uploadIds: row.uploadIds, userId: row.userId, invalid };
 }
 
 /** Adds a stored photo to a draft (creating the draft when the first photo comes before any typing). */

@@ -89,6 +89,41 @@ describe("a commission request", () => {
     expect(await db.select().from(studioClients).where(eq(studioClients.userId, person.id))).toHaveLength(0);
   });
 
+  test("a draft with invalid fields saves every valid field and reports each invalid one", async () => {
+    const { studio, yarnId } = await studioWithYarn();
+    const token = newDraftToken();
+    const first = await saveDraft(studio.id, token, { ...emptyRequest("mittens"), lettering: "AB", notes: "Soft please" }, null);
+    expect(first.invalid).toEqual({});
+    const typed = {
+      ...emptyRequest("mittens"),
+      wearer: "child",
+      lettering: "A<B>", // refused characters
+      neededBy: "31/01/2027", // not a date as the form takes it
+      notes: "x".repeat(2001), // one over the limit
+      yarnIds: [yarnId],
+      colourNotes: "Moss with a cream cuff",
+      measurements: { handCircumference: "16", handLength: "1".repeat(40) },
+      sizeLabel: "Child 6",
+    };
+    const r = await saveDraft(studio.id, token, typed, null);
+    expect(Object.keys(r.invalid).sort()).toEqual(["lettering", "measurements.handLength", "neededBy", "notes"]);
+    expect(r.invalid.notes?.join(" ")).toMatch(/Keep the notes to 2000 characters or fewer/);
+    expect(r.invalid.neededBy?.join(" ")).toMatch(/date that exists/);
+    const back = (await loadDraft(studio.id, token))!.data;
+    // The valid fields are kept…
+    expect(back).toMatchObject({ wearer: "child", yarnIds: [yarnId], colourNotes: "Moss with a cream cuff", sizeLabel: "Child 6", measurements: { handCircumference: "16" } });
+    // …and an invalid field keeps what was saved before instead of being lost or stored wrong.
+    expect(back.lettering).toBe("AB");
+    expect(back.notes).toBe("Soft please");
+    expect(back.neededBy).toBe("");
+    expect(back.measurements?.handLength).toBeUndefined();
+    // A stored value that has gone stale costs only that field on reading.
+    await db.update(requestDrafts).set({ data: { ...back, neededBy: "2001-01-01" } }).where(eq(requestDrafts.id, r.id));
+    const stale = (await loadDraft(studio.id, token))!.data;
+    expect(stale.neededBy).toBeUndefined();
+    expect(stale.colourNotes).toBe("Moss with a cream cuff");
+  });
+
   test("a draft is kept, restored by its token only, and finished after sign-up", async () => {
     const { studio } = await studioWithYarn();
     const token = newDraftToken();
@@ -96,8 +131,10 @@ describe("a commission request", () => {
     const back = await loadDraft(studio.id, token);
     expect(back?.data).toMatchObject({ garment: "hat", lettering: "AB", measurements: { headCircumference: "55" } });
     expect(await loadDraft(studio.id, newDraftToken())).toBeNull();
-    // An oversized draft is refused rather than stored.
-    await expect(saveDraft(studio.id, token, { notes: "x".repeat(5000) }, null)).rejects.toMatchObject({ status: 422 });
+    // An oversized field is never stored: it is reported, and what was saved before stays.
+    const over = await saveDraft(studio.id, token, { garment: "hat", lettering: "AB", notes: "x".repeat(5000) }, null);
+    expect(over.invalid.notes?.[0]).toMatch(/2000 characters or fewer/);
+    expect((await loadDraft(studio.id, token))?.data.notes).toBeUndefined();
 
     const person = await makeUser(`signup${uid()}`);
     const actor = (await loadActor(person.id))!;

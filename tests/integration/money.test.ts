@@ -110,6 +110,16 @@ describe("quotes", { timeout: 60_000 }, () => {
   test("bad input is refused with a clear message and nothing saved", async () => {
     const { w, yarnId, owner } = await setup();
     await expect(saveQuoteDraft(owner, w.commissionA, draft(yarnId, { discountMinor: 99_999_999 }))).rejects.toMatchObject({ status: 422, code: "invalid_quote" });
+    // The refusal is in money, on the discount field (the builder shows it there).
+    const refusal = (await saveQuoteDraft(owner, w.commissionA, draft(yarnId, { discountMinor: 99_999_999 })).then(
+      () => ({ message: "saved", fieldErrors: undefined }),
+      (e: unknown) => e as { message: string; fieldErrors?: Record<string, string[]> },
+    ));
+    expect(refusal.message).toMatch(/^The discount \(£999,999\.99\) is larger than the work and materials \(£[\d,]+\.\d\d\)/);
+    expect(refusal.fieldErrors?.discountMinor?.[0]).toBe(refusal.message);
+    // A message over the limit is refused on its field, in words.
+    const long = quoteDraftSchema.safeParse({ ...draft(yarnId), messageToClient: "m".repeat(2001) });
+    expect(long.success ? [] : long.error.issues.map((i) => [i.path.join("."), i.message])).toEqual([["messageToClient", "Keep the message to 2,000 characters or fewer."]]);
     await expect(saveQuoteDraft(owner, w.commissionA, draft(yarnId, { validUntil: "2001-01-01" }))).rejects.toMatchObject({ status: 422 });
     expect(await db.select().from(quoteVersions).where(eq(quoteVersions.commissionId, w.commissionA))).toHaveLength(0);
     expect(quoteDraftSchema.safeParse({ ...draft(yarnId), pieces: [{ label: "x", plainStitches: -3 }] }).success).toBe(false);

@@ -56,15 +56,16 @@ export async function ensureRequestDraft(...args: unknown[]): Promise<ActionStat
   }
 }
 
-export async function saveRequestDraft(...args: unknown[]): Promise<ActionState<{ savedAt: string }>> {
+/** Saves every valid field; `invalid` names the fields that were not saved and why. */
+export async function saveRequestDraft(...args: unknown[]): Promise<ActionState<{ savedAt: string; invalid: Record<string, string[]> }>> {
   try {
     const { slug, values } = readArgs(args, true);
     const { studio, token } = await studioAndToken(slug, true);
     const actor = await getActor();
     const previous = await loadDraft(studio.id, token);
     const data = { ...values, submitted: previous?.data.submitted ?? false };
-    await saveDraft(studio.id, token!, data, actor?.userId ?? null);
-    return { status: "ok", data: { savedAt: new Date().toISOString() } };
+    const saved = await saveDraft(studio.id, token!, data, actor?.userId ?? null);
+    return { status: "ok", data: { savedAt: new Date().toISOString(), invalid: saved.invalid } };
   } catch (err) {
     return toErrorState(err);
   }

@@ -6,7 +6,7 @@ import { Card } from "@/components/ui/card";
 import { MOTIFS, getMotifKind } from "@/lib/core/chart/motifs";
 import { usesLocalMail } from "@/lib/env";
 import { GARMENT_LABELS } from "@/lib/format";
-import { emptyRequest, requestFields, type RequestFormValues } from "@/lib/schemas/request";
+import { MAX_REFERENCE_PHOTOS, emptyRequest, requestFields, type RequestFormValues } from "@/lib/schemas/request";
 import { getActor } from "@/lib/server/authz";
 import { getStudioBySlug } from "@/lib/server/clients";
 import { draftCookieName, listStudioColours, loadDraft } from "@/lib/server/requests";
@@ -31,7 +31,9 @@ export default async function StudioPublicPage({ params }: { params: Promise<{ s
     const field = requestFields.shape[k as keyof typeof requestFields.shape];
     if (field && field.safeParse(v).success) (initial as Record<string, unknown>)[k] = v;
   }
-  const photoIds = (initial.uploadIds ?? []).filter((id) => draft?.uploadIds.includes(id));
+  // The photos the form last listed; when no save has listed them yet, the ones this draft uploaded.
+  const listed = draft?.data.uploadIds ? (initial.uploadIds ?? []) : (draft?.uploadIds.slice(-MAX_REFERENCE_PHOTOS) ?? []);
+  const photoIds = listed.filter((id) => draft?.uploadIds.includes(id));
   initial.uploadIds = photoIds;
   const colours = await listStudioColours(studio.id);
   return (

@@ -8,10 +8,13 @@ import { SignUpForm } from "@/components/auth/sign-up-form";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { CharCount } from "@/components/ui/char-count";
+import { useUnsavedChanges } from "@/components/ui/use-unsaved-changes";
 import { CautionList } from "@/components/safety/caution-list";
 import { WEARER_BANDS, getAgeBand, getCautions, type CautionGarment } from "@/lib/core/safety";
 import {
   MAX_REFERENCE_PHOTOS,
+  MAX_REQUEST_NOTES,
   MEASUREMENT_LABELS,
   REQUEST_MEASUREMENTS,
   requestSchema,
@@ -23,6 +26,27 @@ import { ensureRequestDraft, holdRequestForSignUp, saveRequestDraft, submitReque
 const GARMENT_NAMES: Record<string, string> = { mittens: "Mittens", hat: "Hat", pullover: "Pullover" };
 // Labelled in the words of the age bands the cautions go by (lib/core/safety).
 const WEARER_ORDER = ["adult", "teen", "child", "baby"] as const;
+
+const DRAFT_FIELD_NAMES: Record<string, string> = {
+  garment: "what to knit",
+  wearer: "who it is for",
+  units: "the units",
+  sizeLabel: "the size",
+  yarnIds: "the colours",
+  colourNotes: "the colour wishes",
+  lettering: "the initials or name",
+  motifIds: "the motifs",
+  neededBy: "the date you need it by",
+  budget: "the budget",
+  notes: "the notes",
+  uploadIds: "the photos",
+};
+/** A draft field's path ("lettering", "measurements.handLength") in the words the form uses. */
+function draftFieldName(path: string): string {
+  const [top, sub] = path.split(".");
+  if (top === "measurements" && sub) return `the ${(MEASUREMENT_LABELS[sub as keyof typeof MEASUREMENT_LABELS] ?? "measurement").toLowerCase()}`;
+  return DRAFT_FIELD_NAMES[top!] ?? "a field";
+}
 
 export interface RequestFormProps {
   slug: string;
@@ -67,6 +91,7 @@ export function RequestForm(props: RequestFormProps) {
   const wearer = watch("wearer");
   const units = watch("units");
   const yarnIds = watch("yarnIds");
+  const notesLength = (watch("notes") ?? "").length;
   // The chosen colours' fibres; with none chosen yet, every fibre the studio offers.
   const chosen = props.colours.filter((c) => (yarnIds ?? []).includes(c.id));
   const fibres = [...new Set((chosen.length ? chosen : props.colours).map((c) => c.fibre))];
@@ -74,17 +99,47 @@ export function RequestForm(props: RequestFormProps) {
 
   const draftReady = () => (ready.current ??= ensureRequestDraft(props.slug));
 
+  // Fields the last draft save could not keep (marked on the field; cleared once they read well).
+  const draftMarked = useRef<string[]>([]);
+  const [unsaved, setUnsaved] = useState(false);
+  useUnsavedChanges(unsaved || uploading > 0);
+
+  /** Saves the draft now: every valid field is kept; the invalid ones are marked and named. */
+  async function saveDraftNow(values: unknown) {
+    setSaved("Saving…");
+    setUnsaved(true);
+    let r: Awaited<ReturnType<typeof saveRequestDraft>>;
+    try {
+      await draftReady();
+      r = await saveRequestDraft(props.slug, values);
+    } catch {
+      setSaved("Draft not saved: the connection dropped. It is saved again as soon as you type.");
+      return;
+    }
+    if (r.status !== "ok" || !r.data) {
+      setSaved(`Draft not saved: ${r.status === "error" ? r.message : "please try again."}`);
+      return;
+    }
+    const invalid = r.data.invalid;
+    for (const path of draftMarked.current) if (!invalid[path]) form.clearErrors(path as keyof RequestFormValues);
+    draftMarked.current = Object.keys(invalid);
+    for (const [path, msgs] of Object.entries(invalid)) setError(path as keyof RequestFormValues, { type: "draft", message: msgs.join(" ") });
+    const names = Object.keys(invalid).map(draftFieldName);
+    setUnsaved(names.length > 0);
+    setSaved(
+      names.length
+        ? `Draft saved, except ${names.join(", ")}: ${names.length === 1 ? "it needs" : "they need"} a correction (marked below).`
+        : "Draft saved.",
+    );
+  }
+
   // Keep a draft on the server while the visitor types (debounced), so nothing is lost.
   useEffect(() => {
     let timer: ReturnType<typeof setTimeout> | undefined;
     const sub = watch((values) => {
       clearTimeout(timer);
-      timer = setTimeout(async () => {
-        setSaved("Saving…");
-        await draftReady();
-        const r = await saveRequestDraft(props.slug, values);
-        setSaved(r.status === "ok" ? "Draft saved." : "Draft not saved; check your connection.");
-      }, 700);
+      setUnsaved(true);
+      timer = setTimeout(() => void saveDraftNow(values), 700);
     });
     return () => {
       clearTimeout(timer);
@@ -134,10 +189,7 @@ export function RequestForm(props: RequestFormProps) {
 
   // Photos are not typed fields, so they are saved at once rather than through the watcher.
   async function saveNow() {
-    setSaved("Saving…");
-    await draftReady();
-    const r = await saveRequestDraft(props.slug, form.getValues());
-    setSaved(r.status === "ok" ? "Draft saved." : "Draft not saved; check your connection.");
+    await saveDraftNow(form.getValues());
   }
 
   const onSubmit = handleSubmit(async (_parsed) => {
@@ -313,9 +365,10 @@ export function RequestForm(props: RequestFormProps) {
           rows={4}
           className="rounded-md border border-bark/40 bg-white px-3 py-2"
           aria-invalid={errors.notes ? true : undefined}
-          aria-describedby={errors.notes ? "notes-error" : undefined}
+          aria-describedby={[notesLength >= 1500 ? "notes-count" : "", errors.notes ? "notes-error" : ""].filter(Boolean).join(" ") || undefined}
           {...register("notes")}
         />
+        <CharCount id="notes-count" length={notesLength} max={MAX_REQUEST_NOTES} showFrom={1500} />
         <ErrorText id="notes-error" message={errors.notes?.message} />
       </div>
 

@@ -2,6 +2,7 @@
 import { STAGES } from "../labour/stages";
 import { getMinorDigits } from "./currency";
 import { PPM_WHOLE, parseExactDecimal, percentToPpm } from "./decimal";
+import { discountTooLargeMessage } from "./messages";
 import { PricingInputError } from "./pricing-error";
 import { divideRounded, toSafeMinor } from "./rounding";
 import {
@@ -258,7 +259,7 @@ export function buildQuote(input: QuoteInput): Quote {
       amount = divideRounded(discountBase * percentToPpm(d.percent, "discount.percent"), PPM_WHOLE);
     }
     if (amount > discountBase) {
-      throw new PricingInputError(`discount (${amount} minor units) is larger than the work and materials it applies to (${discountBase})`);
+      throw new PricingInputError(discountTooLargeMessage(toSafeMinor(amount, "discount"), toSafeMinor(discountBase, "subtotal"), currency), "discountMinor");
     }
     if (amount > 0n) lines.push({ label: d.label ?? "Discount", amountMinor: -toSafeMinor(amount, "discount"), kind: "discount" });
   }
