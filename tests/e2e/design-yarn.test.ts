@@ -44,7 +44,7 @@ describe("yarn from the design", () => {
       }
       await panel.getByRole("button", { name: "Use these skeins" }).click();
       await expect.poll(() => page.getByRole("button", { name: /^Remove yarn/ }).count(), POLL).toBe(3);
-      await expect.poll(() => page.getByLabel("Yarn 1").locator("option:checked").textContent(), POLL).toMatch(/Peat brown/);
+      await expect.poll(() => page.getByLabel("Yarn 1", { exact: true }).locator("option:checked").textContent(), POLL).toMatch(/Peat brown/);
       expect(await page.getByLabel("Skeins of yarn 1").inputValue()).toBe("1");
     });
   });
